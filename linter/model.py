@@ -187,6 +187,7 @@ class Catalog:
     """The schema after replaying every statement, plus what the replay saw on the way."""
 
     tables: dict[str, Table] = field(default_factory=dict)
+    dropped: list[Table] = field(default_factory=list)  # last state of each dropped table, in order
     splits: list[Split] = field(default_factory=list)
     findings: list[Finding] = field(default_factory=list)
     statements_read: int = 0
