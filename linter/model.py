@@ -180,6 +180,7 @@ class Finding:
     dependency: tuple[tuple[str, ...], tuple[str, ...]] | None = None
     explanation: list[str] = field(default_factory=list)
     fingerprint: str = ""
+    subject: str = ""  # without a dependency: what sets it apart (a constraint's columns ...)
 
 
 @dataclass
