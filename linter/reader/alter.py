@@ -1,0 +1,206 @@
+"""ALTER TABLE replayed action by action: columns, NOT NULL, constraints, renames.
+
+Covers ADD / DROP / RENAME COLUMN, ALTER COLUMN SET / DROP NOT NULL and type changes (T-SQL
+``ALTER COLUMN c INT NOT NULL`` too), MySQL MODIFY / CHANGE, ADD / DROP CONSTRAINT, DROP PRIMARY KEY,
+MySQL DROP INDEX / DROP FOREIGN KEY and RENAME TO. Actions sqlglot leaves opaque are ignored.
+
+>>> import sqlglot
+>>> from linter.model import Catalog, Span
+>>> from linter.reader.ddl import create_table
+>>> class _Statement:
+...     span = Span("db/002.sql", 1, 1, 1, 2)
+...     def span_of(self, node): return None
+>>> state = ReplayState(Catalog())
+>>> state.begin_statement(_Statement())
+>>> create_table(state, sqlglot.parse_one("CREATE TABLE ferries (id INT, name TEXT)"))
+True
+>>> alter_table(state, sqlglot.parse_one("ALTER TABLE ferries ADD CONSTRAINT ferry_name UNIQUE (name)"))
+True
+>>> [(u.name, u.columns, state.catalog.tables["ferries"].is_nullable_unique(u))
+...  for u in state.catalog.tables["ferries"].uniques]
+[('ferry_name', ('name',), True)]
+"""
+from __future__ import annotations
+
+from dataclasses import replace
+
+from sqlglot import exp
+
+from linter.model import Table
+from linter.reader.constraints import column_spec, table_constraints
+from linter.reader.ddl import remove_unique
+from linter.reader.names import fold_column, schema_of, table_name
+from linter.reader.state import ReplayState, Shrink, snapshot
+from linter.reader.tables import add_column, add_constraints, drop_column, rename_column, rename_table, set_nullable
+
+
+def alter_table(state: ReplayState, alter: exp.Alter) -> bool:
+    """Apply every action of an ALTER TABLE to its table."""
+    if (alter.args.get("kind") or "").upper() != "TABLE" or not isinstance(alter.this, exp.Table):
+        return False
+    name = table_name(alter.this, state.dialect)
+    table = state.table(name)
+    if table is None:
+        if not alter.args.get("exists"):
+            state.conflict(f"ALTER TABLE of {name}, which does not exist", name)
+        return True
+    for action in alter.args.get("actions") or []:
+        _action(state, table, action)
+    return True
+
+
+def _action(state: ReplayState, table: Table, action: exp.Expression) -> None:
+    """Dispatch one ALTER TABLE action."""
+    if isinstance(action, exp.ColumnDef):
+        _add_column(state, table, action)
+    elif isinstance(action, exp.Drop):
+        _drop(state, table, action)
+    elif isinstance(action, exp.AlterColumn):
+        _alter_column(state, table, action)
+    elif isinstance(action, exp.ModifyColumn):
+        _modify_column(state, table, action)
+    elif isinstance(action, exp.RenameColumn):
+        _rename_column(state, table, action)
+    elif isinstance(action, exp.AlterRename):
+        _rename_table(state, table, action)
+    elif isinstance(action, exp.AddConstraint):
+        specs = [spec for item in action.expressions for spec in table_constraints(item, state.dialect)]
+        added = add_constraints(state, table, specs)
+        if added:
+            state.event(table, "altered", "added " + "; ".join(added))
+    elif isinstance(action, exp.DropPrimaryKey):
+        _drop_primary_key(state, table)
+
+
+def _column(state: ReplayState, table: Table, identifier: exp.Expression, verb: str) -> str | None:
+    """The folded column an action names, or None (and a conflict) when the table lacks it."""
+    node = identifier.this if isinstance(identifier, exp.Column) else identifier
+    name = fold_column(node, state.dialect)
+    if table.column(name) is None:
+        state.conflict(f"{verb} column {name} of {table.name}, which has no such column", table.name)
+        return None
+    return name
+
+
+def _add_column(state: ReplayState, table: Table, coldef: exp.ColumnDef) -> None:
+    """ADD COLUMN (IF NOT EXISTS) with its inline constraints."""
+    spec = column_spec(coldef, state.dialect)
+    if coldef.args.get("exists") and table.column(spec.name) is not None:
+        return
+    if add_column(state, table, spec):
+        state.event(table, "altered", f"added column {spec.name}")
+
+
+def _drop(state: ReplayState, table: Table, action: exp.Drop) -> None:
+    """DROP COLUMN / CONSTRAINT / INDEX / FOREIGN KEY inside an ALTER TABLE."""
+    kind = (action.args.get("kind") or "").upper()
+    if_exists = bool(action.args.get("exists"))
+    for target in action.expressions:
+        node = target.this if isinstance(target, (exp.Column, exp.Table)) else target
+        if not isinstance(node, exp.Identifier):
+            continue
+        if kind == "COLUMN":
+            if if_exists and table.column(fold_column(node, state.dialect)) is None:
+                continue
+            name = _column(state, table, node, "DROP")
+            if name is not None:
+                _record_shrink(state, table)
+                drop_column(state, table, name)
+        else:
+            _drop_constraint(state, table, fold_column(node, state.dialect))
+
+
+def _record_shrink(state: ReplayState, table: Table) -> None:
+    """Note that a column of ``table`` is about to be dropped, with the table as it is now."""
+    state.shrinks.append(Shrink(table, snapshot(table), state.span, state.order, dropped=False))
+
+
+def _drop_constraint(state: ReplayState, table: Table, name: str) -> None:
+    """Drop a key, unique rule or foreign key by name (unknown names: checks, system names)."""
+    primary = next((u for u in table.uniques if u.is_primary and u.name == name), None)
+    if primary is not None:
+        table.uniques.remove(primary)
+        state.event(table, "altered", f"dropped primary key {name} ({', '.join(primary.columns)})")
+        return
+    if remove_unique(state, table, name):
+        return
+    kept = [f for f in table.foreign_keys if f.name != name]
+    if len(kept) != len(table.foreign_keys):
+        table.foreign_keys = kept
+        state.event(table, "altered", f"dropped foreign key {name}")
+
+
+def _drop_primary_key(state: ReplayState, table: Table) -> None:
+    """DROP PRIMARY KEY (its columns stay NOT NULL)."""
+    primary = [u for u in table.uniques if u.is_primary]
+    if not primary:
+        state.conflict(f"DROP PRIMARY KEY of {table.name}, which has none", table.name)
+        return
+    table.uniques = [u for u in table.uniques if not u.is_primary]
+    state.event(table, "altered", f"dropped primary key ({', '.join(primary[0].columns)})")
+
+
+def _alter_column(state: ReplayState, table: Table, action: exp.AlterColumn) -> None:
+    """ALTER COLUMN: SET / DROP NOT NULL, a new type, T-SQL's ``ALTER COLUMN c INT [NOT] NULL``."""
+    name = _column(state, table, action.this, "ALTER")
+    if name is None:
+        return
+    dtype = action.args.get("dtype")
+    if dtype is not None:
+        table.columns = [replace(c, type=dtype.sql(dialect=state.dialect)) if c.name == name else c
+                         for c in table.columns]
+        state.event(table, "altered", f"changed type of {name}")
+    allow_null = action.args.get("allow_null")
+    if allow_null is not None:
+        set_nullable(table, (name,), bool(allow_null))
+        state.event(table, "altered", f"{name} {'DROP' if allow_null else 'SET'} NOT NULL")
+
+
+def _modify_column(state: ReplayState, table: Table, action: exp.ModifyColumn) -> None:
+    """MySQL MODIFY / CHANGE: the column is redefined (and renamed by CHANGE)."""
+    coldef = action.this
+    if not isinstance(coldef, exp.ColumnDef):
+        return
+    spec = column_spec(coldef, state.dialect)
+    old = action.args.get("rename_from")
+    current = _column(state, table, old if old is not None else coldef.this, "MODIFY")
+    if current is None:
+        return
+    if current != spec.name:
+        rename_column(state, table, current, spec.name)
+    primary = any(u.is_primary and spec.name in u.columns for u in table.uniques)
+    nullable = spec.nullable is not False and not primary
+    table.columns = [replace(c, type=spec.type, nullable=nullable) if c.name == spec.name else c
+                     for c in table.columns]
+    add_constraints(state, table, spec.constraints)
+    renamed = f" (was {current})" if current != spec.name else ""
+    state.event(table, "altered", f"redefined column {spec.name}{renamed}")
+
+
+def _rename_column(state: ReplayState, table: Table, action: exp.RenameColumn) -> None:
+    """RENAME COLUMN old TO new."""
+    old = _column(state, table, action.this, "RENAME")
+    target = action.args.get("to")
+    if old is None or target is None:
+        return
+    new = fold_column(target.this if isinstance(target, exp.Column) else target, state.dialect)
+    if table.column(new) is not None:
+        state.conflict(f"RENAME COLUMN {old} TO {new}: {table.name} already has {new}", table.name)
+        return
+    rename_column(state, table, old, new)
+    state.event(table, "altered", f"renamed column {old} to {new}")
+
+
+def _rename_table(state: ReplayState, table: Table, action: exp.AlterRename) -> None:
+    """RENAME TO: an unqualified new name stays in the table's schema."""
+    target = action.this
+    if not isinstance(target, exp.Table):
+        return
+    new = table_name(target, state.dialect)
+    schema = schema_of(table.name)
+    if schema and not schema_of(new):
+        new = f"{schema}.{new}"
+    if state.table(new) is not None:
+        state.conflict(f"RENAME TO {new}: a table {new} already exists", table.name)
+        return
+    rename_table(state, table, new)

@@ -1,0 +1,138 @@
+"""CREATE TABLE, CREATE UNIQUE INDEX, DROP TABLE and DROP INDEX replayed onto the catalog.
+
+Each handler returns True when it understood the statement (False: the replay counts it skipped).
+A unique index is a key only over plain columns without WHERE; otherwise it is kept flagged
+``expression`` or ``partial`` so rules can still talk about it.
+
+>>> import sqlglot
+>>> from linter.model import Catalog, Span
+>>> class _Statement:
+...     span = Span("db/001.sql", 1, 1, 1, 2)
+...     def span_of(self, node): return None
+>>> state = ReplayState(Catalog())
+>>> state.begin_statement(_Statement())
+>>> create_table(state, sqlglot.parse_one("CREATE TABLE depots (id INT PRIMARY KEY, city TEXT)"))
+True
+>>> [(u.source, u.columns) for u in state.catalog.tables["depots"].keys]
+[('primary key', ('id',))]
+"""
+from __future__ import annotations
+
+from sqlglot import exp
+
+from linter.model import Table, Unique
+from linter.reader.constraints import column_spec, table_constraints
+from linter.reader.names import column_name, fold_column, schema_of, table_name
+from linter.reader.state import ReplayState, Shrink, snapshot
+from linter.reader.tables import add_column, add_constraints
+
+
+def create_table(state: ReplayState, create: exp.Create) -> bool:
+    """Add the table a CREATE TABLE with a column list declares."""
+    schema = create.this
+    if not isinstance(schema, exp.Schema) or not isinstance(schema.this, exp.Table):
+        return False
+    name = table_name(schema.this, state.dialect)
+    if state.table(name) is not None:
+        if not create.args.get("exists"):
+            state.conflict(f"table {name} already exists", name)
+        return True
+    table = Table(name, state.span_of(schema.this))
+    state.catalog.tables[name] = table
+    items = list(schema.expressions)
+    for item in items:
+        if isinstance(item, exp.ColumnDef):
+            add_column(state, table, column_spec(item, state.dialect))
+    for item in items:
+        if not isinstance(item, exp.ColumnDef):
+            add_constraints(state, table, table_constraints(item, state.dialect))
+    state.event(table, "created", f"created with columns {', '.join(table.column_names)}")
+    return True
+
+
+def create_index(state: ReplayState, create: exp.Create) -> bool:
+    """Record a CREATE UNIQUE INDEX on its table (plain indexes are not keys and are skipped)."""
+    index = create.this
+    if not create.args.get("unique") or not isinstance(index, exp.Index):
+        return False
+    target = index.args.get("table")
+    params = index.args.get("params")
+    if not isinstance(target, exp.Table) or params is None:
+        return False
+    name = table_name(target, state.dialect)
+    table = state.table(name)
+    if table is None:
+        state.conflict(f"unique index on table {name}, which does not exist", name)
+        return True
+    index_name = fold_column(index.this, state.dialect) if isinstance(index.this, exp.Identifier) else None
+    if create.args.get("exists") and any(u.name == index_name for u in table.uniques):
+        return True
+    items = list(params.args.get("columns") or [])
+    columns = [column_name(item, state.dialect) for item in items]
+    missing = [c for c in columns if c is not None and table.column(c) is None]
+    if missing:
+        state.conflict(f"unique index on {name} names missing column(s) {', '.join(missing)}", name)
+        return True
+    plain = tuple(c for c in columns if c is not None)
+    unique = Unique(plain, "unique index", state.span_of(index), index_name,
+                    partial=params.args.get("where") is not None, expression=None in columns)
+    table.uniques.append(unique)
+    flags = " (partial)" * unique.partial + " (expression)" * unique.expression
+    state.event(table, "altered", f"added unique index {index_name or ''} ({', '.join(plain)}){flags}")
+    return True
+
+
+def drop(state: ReplayState, statement: exp.Drop) -> bool:
+    """DROP TABLE (several names, IF EXISTS) and DROP INDEX; other DROPs are skipped."""
+    kind = (statement.args.get("kind") or "").upper()
+    targets = [t for t in statement.expressions if isinstance(t, exp.Table)]
+    if kind == "TABLE":
+        for target in targets:
+            drop_table(state, table_name(target, state.dialect), bool(statement.args.get("exists")))
+        return True
+    if kind == "INDEX":
+        on = statement.args.get("cluster")
+        owner = table_name(on.this, state.dialect) if isinstance(on, exp.OnProperty) else None
+        for target in targets:
+            drop_index(state, table_name(target, state.dialect), owner)
+        return True
+    return False
+
+
+def drop_table(state: ReplayState, name: str, if_exists: bool) -> None:
+    """Drop one table, keeping its last state in ``catalog.dropped``."""
+    table = state.table(name)
+    if table is None:
+        if not if_exists:
+            state.conflict(f"DROP TABLE of {name}, which does not exist", name)
+        return
+    state.shrinks.append(Shrink(table, snapshot(table), state.span, state.order, dropped=True))
+    state.event(table, "dropped", f"dropped table {name}")
+    del state.catalog.tables[name]
+    state.catalog.dropped.append(table)
+
+
+def drop_index(state: ReplayState, qualified: str, owner: str | None) -> None:
+    """Remove the unique rule a dropped index name stands for (unknown names are plain indexes).
+
+    ``qualified`` is the index name with its schema; T-SQL's old ``table.index`` form is tried too.
+    """
+    schema, _, index_name = qualified.rpartition(".")
+    if owner is not None:
+        candidates = [state.table(owner)]
+    else:
+        candidates = [t for t in state.catalog.tables.values() if schema_of(t.name) == schema]
+        candidates += [state.table(schema)] if schema else []
+    for table in candidates:
+        if table is not None and remove_unique(state, table, index_name):
+            return
+
+
+def remove_unique(state: ReplayState, table: Table, name: str) -> bool:
+    """Drop the non-primary unique rule called ``name`` from ``table``; False when there is none."""
+    found = next((u for u in table.uniques if u.name == name and not u.is_primary), None)
+    if found is None:
+        return False
+    table.uniques.remove(found)
+    state.event(table, "altered", f"dropped {found.source} {name} ({', '.join(found.columns)})")
+    return True

@@ -1,0 +1,117 @@
+"""What the replay carries from statement to statement: the catalog, the statement at hand, data moves.
+
+Each handler receives the one ``ReplayState`` and reads the current statement, dialect and file from
+it, so a finding or an event always gets the span of the statement being replayed.
+
+>>> from linter.model import Span
+>>> state = ReplayState(Catalog())
+>>> state.begin_file("db/001.sql", "postgres")
+>>> state.dialect, state.path
+('postgres', 'db/001.sql')
+"""
+from __future__ import annotations
+
+from dataclasses import dataclass, field, replace
+from typing import Any
+
+from sqlglot import exp
+
+from linter.model import Catalog, Event, Finding, Span, Table
+
+
+@dataclass
+class Feed:
+    """Rows copied from ``source`` into ``target`` by one statement, column by column."""
+
+    source: Table
+    target: Table
+    lineage: dict[str, str | None]
+    span: Span
+    path: str
+    order: int
+
+
+@dataclass
+class Shrink:
+    """A table dropped, or some of its columns dropped, with its state just before."""
+
+    table: Table
+    before: Table
+    span: Span
+    order: int
+    dropped: bool
+
+
+@dataclass
+class Declaration:
+    """A ``split-from`` annotation: the piece, and the original's state when the piece appeared."""
+
+    piece: Table
+    original: Table
+    span: Span
+
+
+@dataclass
+class ReplayState:
+    """The catalog being built and the context of the statement being replayed."""
+
+    catalog: Catalog
+    dialect: str = "postgres"
+    path: str = ""
+    statement: Any = None
+    order: int = 0
+    feeds: list[Feed] = field(default_factory=list)
+    shrinks: list[Shrink] = field(default_factory=list)
+    declarations: dict[str, list[Declaration]] = field(default_factory=dict)
+
+    def begin_file(self, path: str, dialect: str) -> None:
+        """Start replaying the statements of one file."""
+        self.path, self.dialect, self.shrinks = path, dialect, []
+        self.catalog.files.append(path)
+
+    def begin_statement(self, statement: Any) -> None:
+        """Make ``statement`` the one findings and events point at."""
+        self.statement = statement
+        self.order += 1
+
+    @property
+    def span(self) -> Span:
+        """The span of the statement being replayed."""
+        return self.statement.span
+
+    def span_of(self, node: exp.Expression | None) -> Span:
+        """The file span of a node of the current statement, the statement's own when unknown."""
+        if node is None:
+            return self.span
+        found = self.statement.span_of(node)
+        return found if found is not None else self.span
+
+    def report(self, rule: str, severity: str, message: str, span: Span | None = None,
+               table: str | None = None) -> None:
+        """Add a reader finding (at the current statement unless a span is given)."""
+        self.catalog.findings.append(Finding(rule, severity, span or self.span, message, table))
+
+    def conflict(self, message: str, table: str | None = None) -> None:
+        """Report a statement that does not fit the schema replayed so far."""
+        self.report("schema-conflict", "warning", message, table=table)
+
+    def event(self, table: Table, action: str, detail: str) -> None:
+        """Append a step to a table's history at the current statement."""
+        table.history.append(Event(action, detail, self.span))
+
+    def table(self, name: str) -> Table | None:
+        """The live table called ``name``, or None."""
+        return self.catalog.tables.get(name)
+
+    def last_state(self, name: str) -> Table | None:
+        """The live table called ``name``, else the last state of a dropped one."""
+        live = self.table(name)
+        if live is not None:
+            return live
+        return next((t for t in reversed(self.catalog.dropped) if t.name == name), None)
+
+
+def snapshot(table: Table) -> Table:
+    """A copy of a table that later statements cannot change."""
+    lists = ("columns", "uniques", "foreign_keys", "checks", "dependencies", "allows", "history")
+    return replace(table, **{name: list(getattr(table, name)) for name in lists})
