@@ -83,6 +83,11 @@ class Config:
         settings = self.tables.get(table)
         return settings.target if settings and settings.target else self.target
 
+    def dialect_for(self, path: str) -> str:
+        """The dialect of the file at ``path``: the deepest ``dialects`` folder holding it, or ``dialect``."""
+        matches = [f for f in self.dialects if f in (".", path) or path.startswith(f.rstrip("/") + "/")]
+        return self.dialects[max(matches, key=len)] if matches else self.dialect
+
     def config_dependencies(self) -> dict[str, list[Dependency]]:
         """Declared dependencies by table, in the shape ``read_catalog`` takes."""
         return {name: list(s.dependencies) for name, s in self.tables.items() if s.dependencies}
