@@ -4,6 +4,9 @@ Choices follow the OASIS SARIF 2.1.0 Errata 01 standard: relative, percent-encod
 under the ``%SRCROOT%`` base id (whose absolute location is left out), exclusive ``endColumn``,
 ``columnKind`` in code points, ``results`` always an array, and our own versioned
 ``partialFingerprints`` key, computed without line numbers so it survives edits above a finding.
+Given a baseline comparison, every result carries ``baselineState`` (SARIF §3.27.24): ``new``,
+``unchanged`` (also suppressed, kind ``external``: a baseline is a separate store, §3.35) or
+``absent`` for a baseline entry whose finding is gone (kind ``pass``: the problem is no longer there).
 
 >>> artifact_uri("db/my schema.sql")
 'db/my%20schema.sql'
@@ -15,6 +18,7 @@ from typing import TYPE_CHECKING, Any
 from urllib.parse import quote
 
 from linter import __version__
+from linter.baseline import Comparison, Entry
 from linter.model import Finding
 from linter.reporters.ordering import ordered
 from linter.rule import Rule
@@ -81,8 +85,34 @@ def _result(finding: Finding, index: dict[str, int]) -> dict[str, Any]:
     return result
 
 
-def sarif_log(result: Result, *, exit_code: int = 0) -> dict[str, Any]:
-    """The SARIF log as a dict, ``version`` first."""
+def _absent(entry: Entry, index: dict[str, int]) -> dict[str, Any]:
+    """The result of a baseline entry whose finding is gone."""
+    result: dict[str, Any] = {"ruleId": entry.rule}
+    if entry.rule in index:
+        result["ruleIndex"] = index[entry.rule]
+    result.update(kind="pass", level="none", message={"text": f"fixed since the baseline: {entry.message}"})
+    location = {"artifactLocation": {"uri": artifact_uri(entry.path), "uriBaseId": BASE_ID}}
+    result["locations"] = [{"physicalLocation": location}]
+    result["partialFingerprints"] = {FINGERPRINT_KEY: entry.fingerprint}
+    if entry.table is not None:
+        result["properties"] = {"table": entry.table}
+    return result
+
+
+def _baseline_results(comparison: Comparison, index: dict[str, int]) -> list[dict[str, Any]]:
+    """New, unchanged and absent results, each with ``baselineState`` and ``suppressions``."""
+    accepted = {"kind": "external", "status": "accepted", "justification": "recorded in the normguard baseline"}
+    results = [
+        {**_result(finding, index), "baselineState": state, "suppressions": [accepted] if state == "unchanged" else []}
+        for state, findings in (("new", comparison.new), ("unchanged", comparison.unchanged))
+        for finding in ordered(findings)
+    ]
+    absent = [{**_absent(entry, index), "baselineState": "absent", "suppressions": []} for entry in comparison.fixed]
+    return results + absent
+
+
+def sarif_log(result: Result, *, exit_code: int = 0, baseline: Comparison | None = None) -> dict[str, Any]:
+    """The SARIF log as a dict, ``version`` first; with ``baseline``, its results instead of the findings."""
     rules: list[Rule] = sorted(result.rules, key=lambda rule: rule.id)
     index = {rule.id: position for position, rule in enumerate(rules)}
     driver = {
@@ -98,11 +128,16 @@ def sarif_log(result: Result, *, exit_code: int = 0) -> dict[str, Any]:
         },
         "columnKind": "unicodeCodePoints",
         "invocations": [{"executionSuccessful": True, "exitCode": exit_code}],
-        "results": [_result(finding, index) for finding in ordered(result.findings)],
+        "results": (
+            [_result(finding, index) for finding in ordered(result.findings)]
+            if baseline is None
+            else _baseline_results(baseline, index)
+        ),
     }
     return {"version": "2.1.0", "$schema": SCHEMA_URI, "runs": [run]}
 
 
-def render_sarif(result: Result, *, exit_code: int = 0) -> str:
+def render_sarif(result: Result, *, exit_code: int = 0, baseline: Comparison | None = None) -> str:
     """The SARIF log as indented JSON text."""
-    return json.dumps(sarif_log(result, exit_code=exit_code), indent=2, ensure_ascii=False) + "\n"
+    log = sarif_log(result, exit_code=exit_code, baseline=baseline)
+    return json.dumps(log, indent=2, ensure_ascii=False) + "\n"
