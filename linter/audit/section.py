@@ -1,0 +1,175 @@
+"""One table's part of the audit page: columns, keys, diagram, findings, decomposition, history.
+
+It renders the table record of the audit data (see ``linter.audit.data``); every name from the
+user's files goes through ``html.escape``.
+
+>>> record = {"name": "<ferry>", "path": "db/1.sql", "line": 2, "normal_form": "BCNF",
+...           "meets_target": True, "columns": [], "keys": [], "keys_complete": True,
+...           "dependencies": [], "findings": [], "decomposition": None, "history": []}
+>>> html = table_section(record, "t1")
+>>> "&lt;ferry&gt;" in html and "<ferry>" not in html
+True
+"""
+from __future__ import annotations
+
+from collections.abc import Mapping, Sequence
+from html import escape
+from typing import Any
+
+from linter.audit.diagram import dependency_svg
+from linter.audit.layout import Arrow
+
+Record = Mapping[str, Any]
+
+
+def e(value: object) -> str:
+    """Text escaped for HTML content and attribute values."""
+    return escape(str(value), quote=True)
+
+
+def where(item: Record) -> str:
+    """``path:line`` of an item that has them, as a muted location."""
+    return f'<span class="loc">{e(item["path"])}:{e(item["line"])}</span>'
+
+
+def names(columns: Sequence[str]) -> str:
+    """Column names as code, comma-separated."""
+    return ", ".join(f"<code>{e(c)}</code>" for c in columns) or "<code>\u2205</code>"
+
+
+def nf_badge(form: str) -> str:
+    """A coloured badge naming a normal form."""
+    return f'<span class="badge nf-{e(form)}">{e(form)}</span>'
+
+
+def table_section(record: Record, anchor: str) -> str:
+    """The ``<section>`` of one table."""
+    target = '<span class="badge ok">meets target</span>' if record["meets_target"] else (
+        '<span class="badge short">below target</span>'
+    )
+    parts = [
+        f'<section class="table-section panel" id="{e(anchor)}" data-table="{e(record["name"])}">',
+        f'<div class="head"><h2>{e(record["name"])}</h2>{nf_badge(record["normal_form"])}{target}'
+        f"{where(record)}</div>",
+        '<div class="columns2">',
+        f"<div><h3>Columns</h3>{_columns(record['columns'])}</div>",
+        f"<div><h3>Candidate keys</h3>{_keys(record)}</div>",
+        "</div>",
+        "<h3>Dependency diagram</h3>",
+        _diagram(record),
+        f"<h3>Dependencies</h3>{_dependencies(record['dependencies'])}",
+        f"<h3>Findings</h3>{_findings(record['findings'])}",
+        f"<h3>Proposed decomposition</h3>{_decomposition(record['decomposition'])}",
+        f"<h3>History</h3>{_history(record['history'])}",
+        "</section>",
+    ]
+    return "\n".join(parts)
+
+
+def _columns(columns: Sequence[Record]) -> str:
+    """The columns in declaration order with type, nullability and key membership."""
+    if not columns:
+        return '<p class="empty">No columns.</p>'
+    rows = "".join(
+        f"<tr><td><code>{e(c['name'])}</code></td><td class=\"mono\">{e(c['type'])}</td>"
+        f"<td>{'null' if c['nullable'] else 'not null'}</td>"
+        f"<td>{'primary key' if c['primary'] else 'in a key' if c['prime'] else ''}</td></tr>"
+        for c in columns
+    )
+    return f"<table><thead><tr><th>Name</th><th>Type</th><th>Null</th><th>Key</th></tr></thead><tbody>{rows}</tbody></table>"
+
+
+def _keys(record: Record) -> str:
+    """Each candidate key with the constraints that declare it, or a note that it was derived."""
+    keys = record["keys"]
+    if not keys:
+        return '<p class="empty">No key: rows may repeat.</p>'
+    items = []
+    for key in keys:
+        declared = "; ".join(f"{e(d['source'])} at {where(d)}" for d in key["declared"])
+        items.append(f"<li>{names(key['columns'])} \u2014 {declared or 'follows from the dependencies'}</li>")
+    note = "" if record["keys_complete"] else (
+        '<p class="empty">The key search stopped early on this wide table; more keys may exist.</p>'
+    )
+    return f"<ul>{''.join(items)}</ul>{note}"
+
+
+def _diagram(record: Record) -> str:
+    """The inline SVG with a legend, one lane per determinant and kind."""
+    grouped: dict[tuple[tuple[str, ...], str], list[Record]] = {}
+    for dependency in record["dependencies"]:
+        grouped.setdefault((tuple(dependency["lhs"]), dependency["kind"]), []).append(dependency)
+    arrows = [
+        Arrow(lhs, tuple(dict.fromkeys(c for d in deps for c in d["rhs"])), kind,
+              ", ".join(dict.fromkeys(f"{d['source']} at {d['path']}:{d['line']}" for d in deps)))
+        for (lhs, kind), deps in grouped.items()
+    ]
+    columns = [c["name"] for c in record["columns"]]
+    svg = dependency_svg(
+        columns, arrows,
+        primary=[c["name"] for c in record["columns"] if c["primary"]],
+        prime=[c["name"] for c in record["columns"] if c["prime"]],
+        notes={c["name"]: c["type"] for c in record["columns"]},
+        title=f"Dependency diagram of {record['name']}",
+    )
+    legend = (
+        '<ul class="legend"><li><span class="line key-line"></span>determined by a key (below)</li>'
+        '<li><span class="line violation-line"></span>breaks the target normal form (above)</li>'
+        '<li><span class="line other-line"></span>other dependency (above)</li>'
+        "<li><u>underlined</u>: primary key \u00b7 <b>bold</b>: part of a candidate key</li></ul>"
+    )
+    return f'<div class="diagram">{svg}</div>{legend}'
+
+
+def _dependencies(dependencies: Sequence[Record]) -> str:
+    """The given dependencies with where each comes from."""
+    if not dependencies:
+        return '<p class="empty">No dependencies known: declare a key or annotate one.</p>'
+    rows = "".join(
+        f"<tr><td>{names(d['lhs'])} \u2192 {names(d['rhs'])}</td><td>{e(d['source'])}</td><td>{where(d)}</td></tr>"
+        for d in dependencies
+    )
+    return f"<table><thead><tr><th>Dependency</th><th>From</th><th>Where</th></tr></thead><tbody>{rows}</tbody></table>"
+
+
+def _findings(findings: Sequence[Record]) -> str:
+    """Every finding on the table, with its explanation."""
+    if not findings:
+        return '<p class="empty">None.</p>'
+    blocks = []
+    for f in findings:
+        explanation = "".join(f"<li>{e(line)}</li>" for line in f["explanation"])
+        blocks.append(
+            f'<div class="finding {e(f["severity"])}"><span class="sev">{e(f["severity"])}</span>'
+            f"<code>{e(f['rule'])}</code> {where(f)}<div>{e(f['message'])}</div>"
+            f"{f'<ul>{explanation}</ul>' if explanation else ''}</div>"
+        )
+    return "".join(blocks)
+
+
+def _decomposition(decomposition: Record | None) -> str:
+    """The tables a lossless split would give, what it cannot enforce, and the SQL caution."""
+    if decomposition is None:
+        return '<p class="empty">None needed: the table meets the target.</p>'
+    pieces = "".join(
+        f'<div class="piece"><div>{names(p["columns"])}</div>'
+        f'<div class="loc">key: {" | ".join(", ".join(map(e, k)) for k in p["keys"]) or "all columns"}</div></div>'
+        for p in decomposition["pieces"]
+    )
+    lost = "".join(f"<li>{names(d['lhs'])} \u2192 {names(d['rhs'])}</li>" for d in decomposition["lost"])
+    lost_html = f"<p>Not enforceable in any one piece:</p><ul>{lost}</ul>" if lost else ""
+    sql = f"<pre>{e(decomposition['sql'])}</pre>" if decomposition.get("sql") else ""
+    return (
+        f"<p>{e(decomposition['method'])}:</p><div class=\"pieces\">{pieces}</div>{lost_html}{sql}"
+        f'<p class="caution">{e(decomposition["caution"])}</p>'
+    )
+
+
+def _history(history: Sequence[Record]) -> str:
+    """The table's events through the migrations, oldest first."""
+    if not history:
+        return '<p class="empty">No recorded events.</p>'
+    items = "".join(
+        f'<li><span class="action">{e(h["action"])}</span> {e(h["detail"])} {where(h)}</li>' for h in history
+    )
+    return f'<ol class="history">{items}</ol>'
