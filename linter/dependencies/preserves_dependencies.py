@@ -1,0 +1,43 @@
+"""Which dependencies a decomposition fails to preserve, without projecting (Beeri & Honeyman 1981).
+
+>>> # (courier, depot, city) split into (courier, depot) and (courier, city) loses depot -> city
+>>> f = [FD(0b001, 0b010), FD(0b010, 0b100)]
+>>> preserves_dependencies(f, [0b011, 0b101])
+(FD(lhs=2, rhs=4),)
+>>> preserves_dependencies(f, [0b011, 0b110])
+()
+
+X -> A of the minimal cover is preserved when A enters Z, grown from Z := X by
+Z := Z u ((Z n Ri)+ n Ri) over the pieces Ri until it stops growing. That is the closure of X
+under the union of the projections, computed without computing them, in polynomial time.
+"""
+from __future__ import annotations
+
+from collections.abc import Sequence
+
+from .closure import ClosureIndex
+from .fd import FD
+from .minimal_cover import minimal_cover
+
+
+def preserves_dependencies(
+    fds: Sequence[tuple[int, int]], pieces: Sequence[int]
+) -> tuple[FD, ...]:
+    """The dependencies of the minimal cover of ``fds`` that the pieces do not preserve."""
+    cover = minimal_cover(fds)
+    index = ClosureIndex(cover)
+    return tuple(fd for fd in cover if not _preserved(fd, index, pieces))
+
+
+def _preserved(fd: FD, index: ClosureIndex, pieces: Sequence[int]) -> bool:
+    """Whether the projections onto the pieces together imply ``fd``."""
+    z = fd.lhs
+    while True:
+        grown = z
+        for piece in pieces:
+            grown |= index.closure(grown & piece) & piece
+        if not fd.rhs & ~grown:
+            return True
+        if grown == z:
+            return False
+        z = grown
