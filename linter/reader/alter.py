@@ -95,7 +95,7 @@ def _drop(state: ReplayState, table: Table, action: exp.Drop) -> None:
     """DROP COLUMN / CONSTRAINT / INDEX / FOREIGN KEY inside an ALTER TABLE."""
     kind = (action.args.get("kind") or "").upper()
     if_exists = bool(action.args.get("exists"))
-    for target in action.expressions:
+    for target in action.args.get("tables") or []:
         node = target.this if isinstance(target, (exp.Column, exp.Table)) else target
         if not isinstance(node, exp.Identifier):
             continue

@@ -111,12 +111,12 @@ def table_constraints(node: exp.Expression, dialect: str) -> list[Spec]:
         if isinstance(part, (exp.PrimaryKey, exp.PrimaryKeyColumnConstraint, exp.UniqueColumnConstraint)):
             key = _key(part, name, parts, dialect)
             if key is not None:
-                specs.append(key)
+                specs.append(KeySpec(key.columns, key.source, key.name, node))
         elif isinstance(part, exp.ForeignKey):
             columns = tuple(c for c in _columns(list(part.expressions), dialect) if c is not None)
             ref = part.args.get("reference")
             ref_table, ref_columns = reference(ref, dialect) if ref is not None else ("", ())
-            specs.append(ForeignKeySpec(columns, ref_table, ref_columns, name, part))
+            specs.append(ForeignKeySpec(columns, ref_table, ref_columns, name, node))
         elif isinstance(part, exp.CheckColumnConstraint):
             specs.append(CheckSpec(node.sql(dialect=dialect)))
     return specs

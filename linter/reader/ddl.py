@@ -74,6 +74,7 @@ def create_index(state: ReplayState, create: exp.Create) -> bool:
         state.conflict(f"unique index on {name} names missing column(s) {', '.join(missing)}", name)
         return True
     plain = tuple(c for c in columns if c is not None)
+    plain += tuple(c for item in items for c in _expression_columns(item, table, state.dialect) if c not in plain)
     unique = Unique(plain, "unique index", state.span_of(index), index_name,
                     partial=params.args.get("where") is not None, expression=None in columns)
     table.uniques.append(unique)
@@ -82,10 +83,21 @@ def create_index(state: ReplayState, create: exp.Create) -> bool:
     return True
 
 
+def _expression_columns(item: exp.Expression, table: Table, dialect: str) -> list[str]:
+    """Columns an expression item of an index reads (``lower(label)``, MySQL prefix ``email(191)``)."""
+    if column_name(item, dialect) is not None:
+        return []
+    node = item.this if isinstance(item, exp.Ordered) else item
+    found = [fold_column(c.this, dialect) for c in node.find_all(exp.Column) if isinstance(c.this, exp.Identifier)]
+    if isinstance(node, exp.Anonymous) and table.column(fold_column(exp.to_identifier(node.name), dialect)):
+        found.append(fold_column(exp.to_identifier(node.name), dialect))
+    return [c for c in dict.fromkeys(found) if table.column(c) is not None]
+
+
 def drop(state: ReplayState, statement: exp.Drop) -> bool:
     """DROP TABLE (several names, IF EXISTS) and DROP INDEX; other DROPs are skipped."""
     kind = (statement.args.get("kind") or "").upper()
-    targets = [t for t in statement.expressions if isinstance(t, exp.Table)]
+    targets = [t for t in statement.args.get("tables") or [] if isinstance(t, exp.Table)]
     if kind == "TABLE":
         for target in targets:
             drop_table(state, table_name(target, state.dialect), bool(statement.args.get("exists")))

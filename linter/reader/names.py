@@ -51,8 +51,10 @@ def schema_of(name: str) -> str:
 
 
 def column_name(node: exp.Expression, dialect: str) -> str | None:
-    """The column a list item names (Identifier, Column or Ordered(Column)), None for an expression."""
+    """The column a list item names (Identifier, Column, Ordered(Column), COLLATE), None for an expression."""
     if isinstance(node, exp.Ordered):
+        node = node.this
+    if isinstance(node, exp.Collate):  # unique under a collation implies unique as stored
         node = node.this
     if isinstance(node, exp.Column) and not node.table and isinstance(node.this, exp.Identifier):
         node = node.this
@@ -72,19 +74,20 @@ def parse_column_name(text: str, dialect: str) -> str:
     return fold_column(column.this, dialect) if isinstance(column.this, exp.Identifier) else text
 
 
-def implied_name(dialect: str, table: str, kind: str, columns: tuple[str, ...]) -> str | None:
+def implied_name(dialect: str, table: str, kind: str, columns: tuple[str, ...], ordinal: int = 1) -> str | None:
     """The name the database gives an unnamed constraint, so a later DROP CONSTRAINT finds it.
 
     PostgreSQL: ``<table>_pkey``, ``<table>_<cols>_key``, ``<table>_<cols>_fkey``, the longer part
-    cut first to fit 63 characters; MySQL: ``PRIMARY`` and a unique key named after its first
-    column (both from memory of the databases' behaviour).
+    cut first to fit 63 characters; MySQL: ``PRIMARY``, a unique key named after its first column,
+    the ``ordinal``-th foreign key ``<table>_ibfk_<ordinal>`` (from memory of both databases).
     """
     bare = table.rpartition(".")[2]
     if dialect == "postgres":
         label = {"primary key": "pkey", "unique constraint": "key", "foreign key": "fkey"}[kind]
         return _postgres_name(bare, "" if kind == "primary key" else "_".join(columns), label)
-    if dialect == "mysql" and kind != "foreign key":
-        return "PRIMARY" if kind == "primary key" else columns[0]
+    if dialect == "mysql":
+        names = {"primary key": "PRIMARY", "foreign key": f"{bare}_ibfk_{ordinal}"}
+        return names.get(kind, columns[0] if columns else None)
     return None
 
 

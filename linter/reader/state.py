@@ -66,7 +66,7 @@ class ReplayState:
 
     def begin_file(self, path: str, dialect: str) -> None:
         """Start replaying the statements of one file."""
-        self.path, self.dialect, self.shrinks = path, dialect, []
+        self.path, self.dialect, self.shrinks, self.statement = path, dialect, [], None
         self.catalog.files.append(path)
 
     def begin_statement(self, statement: Any) -> None:
@@ -76,12 +76,12 @@ class ReplayState:
 
     @property
     def span(self) -> Span:
-        """The span of the statement being replayed."""
-        return self.statement.span
+        """The span of the statement being replayed (the file's first line before any statement)."""
+        return self.statement.span if self.statement is not None else Span(self.path, 1, 1, 1, 1)
 
     def span_of(self, node: exp.Expression | None) -> Span:
         """The file span of a node of the current statement, the statement's own when unknown."""
-        if node is None:
+        if node is None or self.statement is None:
             return self.span
         found = self.statement.span_of(node)
         return found if found is not None else self.span

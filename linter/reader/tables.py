@@ -75,7 +75,8 @@ def _add_foreign_key(state: ReplayState, table: Table, spec: ForeignKeySpec) -> 
     if missing:
         state.conflict(f"foreign key of {table.name} names missing column(s) {', '.join(missing)}", table.name)
         return False
-    name = spec.name or implied_name(state.dialect, table.name, "foreign key", spec.columns)
+    ordinal = 1 + sum(1 for f in table.foreign_keys if f.name and "_ibfk_" in f.name)
+    name = spec.name or implied_name(state.dialect, table.name, "foreign key", spec.columns, ordinal)
     span = state.span_of(spec.node)
     table.foreign_keys.append(ForeignKey(spec.columns, spec.ref_table, spec.ref_columns, span, name))
     return True
