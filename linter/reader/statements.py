@@ -1,0 +1,841 @@
+"""One SQL file -> statements with exact source spans and the comments around them: ``split_file``.
+
+sqlglot's tokenizer reads the whole file once; statements are cut at top-level ``;`` tokens (so
+strings, dollar-quoted bodies and ``BEGIN ... END`` blocks stay whole) and at client batch
+separators (T-SQL ``GO``, SQL*Plus ``/``, mysql ``DELIMITER``, psql ``\\`` meta-commands). Each
+statement is parsed alone from its tokens, so one bad statement never hides the next ones.
+Token offsets are file offsets: an ``Identifier``'s ``meta`` start/end index ``source.text``.
+
+>>> from linter.reader.sources import Source
+>>> script = split_file(Source("db/001.sql", "-- depots\\nCREATE TABLE depot (city text);\\nEND;"), "postgres")
+>>> [(s.expression.key, s.span.line, s.text) for s in script.statements]
+[('create', 2, 'CREATE TABLE depot (city text)'), ('commit', 3, 'END')]
+>>> script.statements[0].comments[0].text, script.statements[0].comments[0].span.line
+(' depots', 1)
+"""
+from __future__ import annotations
+
+import bisect
+import logging
+import re
+from collections.abc import Iterator, Sequence
+from contextlib import contextmanager
+from dataclasses import dataclass, field
+from functools import lru_cache
+
+import sqlglot.dialects  # noqa: F401  (registers every dialect before names are listed)
+from sqlglot import exp
+from sqlglot.dialects.dialect import Dialect
+from sqlglot.dialects.mysql import MySQL
+from sqlglot.dialects.oracle import Oracle
+from sqlglot.dialects.postgres import Postgres
+from sqlglot.dialects.tsql import TSQL
+from sqlglot.errors import ErrorLevel, ParseError, TokenError
+from sqlglot.tokens import Token, TokenType
+
+from linter.model import Finding, Span
+from linter.reader.sources import Source
+
+__all__ = [
+    "Comment",
+    "LineIndex",
+    "Script",
+    "Statement",
+    "UnknownDialectError",
+    "get_dialect",
+    "split_file",
+    "split_statements",
+]
+
+
+class UnknownDialectError(ValueError):
+    """A dialect name sqlglot does not know; the message lists the names it does know."""
+
+
+@lru_cache(maxsize=None)
+def get_dialect(name: str | None) -> Dialect:
+    """The sqlglot dialect called ``name`` (``""``/None: sqlglot's dialect-neutral default)."""
+    try:
+        return Dialect.get_or_raise(name or None)
+    except (ValueError, KeyError) as error:
+        known = ", ".join(sorted(k for k in Dialect.classes if k))
+        raise UnknownDialectError(f"unknown SQL dialect {name!r}; known dialects: {known}") from error
+
+
+_LINE_BREAK = re.compile(r"\r\n?|\n")
+
+
+class LineIndex:
+    """Converts character offsets of one text to 1-based lines and columns.
+
+    Lines end at ``\\n``, ``\\r\\n`` or a lone ``\\r``, as sqlglot's tokenizer counts them.
+    """
+
+    def __init__(self, path: str, text: str) -> None:
+        self.path = path
+        self.size = len(text)
+        self.starts = [0]
+        self.starts.extend(m.end() for m in _LINE_BREAK.finditer(text))
+
+    def position(self, offset: int) -> tuple[int, int]:
+        """(line, column) of the character at ``offset``, both 1-based."""
+        offset = max(0, min(offset, self.size))
+        line = bisect.bisect_right(self.starts, offset)
+        return line, offset - self.starts[line - 1] + 1
+
+    def offset(self, line: int, column: int) -> int:
+        """The offset of a 1-based (line, column), clamped into the text."""
+        line = max(1, min(line, len(self.starts)))
+        return max(0, min(self.starts[line - 1] + column - 1, self.size))
+
+    def span(self, start: int, end: int) -> Span:
+        """The span of ``text[start:end]`` (``end`` exclusive)."""
+        line, column = self.position(start)
+        if end <= start:
+            return Span(self.path, line, column, line, column)
+        end_line, end_column = self.position(end - 1)
+        return Span(self.path, line, column, end_line, end_column + 1)
+
+
+@dataclass(frozen=True)
+class Comment:
+    """A ``--``/``#`` or ``/* */`` comment: its text without delimiters, and where it stands."""
+
+    text: str
+    span: Span
+    start: int = field(default=0, compare=False)
+    end: int = field(default=0, compare=False)
+
+
+@dataclass
+class Statement:
+    """One statement of a file, parsed or not.
+
+    ``kind`` is ``"ast"`` (a real expression tree), ``"opaque"`` (an ``exp.Command`` for DDL the
+    linter needs: CREATE TABLE, CREATE UNIQUE INDEX, ALTER TABLE ADD/DROP/RENAME), ``"error"``
+    (could not be parsed: ``expression`` is None), ``"command"`` (another opaque statement:
+    functions, triggers, grants ...) or ``"fragment"`` (a bare expression left by a body split).
+    """
+
+    expression: exp.Expression | None
+    text: str
+    span: Span
+    offset: int
+    comments: tuple[Comment, ...]
+    opaque: bool
+    kind: str = "ast"
+    end: int = field(default=0, repr=False)
+    lines: LineIndex | None = field(default=None, repr=False, compare=False)
+
+    def span_of(self, node: exp.Expression | None) -> Span:
+        """The file span of ``node``: from the first to the last token with a position under it."""
+        if node is None or self.lines is None:
+            return self.span
+        start = end = None
+        for sub in node.walk():
+            meta = sub._meta
+            if meta and "start" in meta and "end" in meta:
+                if start is None or meta["start"] < start:
+                    start = meta["start"]
+                if end is None or meta["end"] > end:
+                    end = meta["end"]
+        if start is None or end is None:
+            return self.span
+        return self.lines.span(start, end + 1)
+
+
+@dataclass
+class Script:
+    """What ``split_file`` read from one file.
+
+    ``statements`` are the ones to replay (kinds ast, opaque and error, in file order);
+    ``skipped`` the other Commands and fragments (kept for their comments); ``findings`` the
+    file, tokenizer and parser problems met.
+    """
+
+    path: str
+    statements: list[Statement] = field(default_factory=list)
+    skipped: list[Statement] = field(default_factory=list)
+    trailing_comments: tuple[Comment, ...] = ()
+    findings: list[Finding] = field(default_factory=list)
+
+    def count(self, kind: str) -> int:
+        """How many statements of ``kind`` (ast, opaque, error, command, fragment) were read."""
+        return sum(1 for s in (*self.statements, *self.skipped) if s.kind == kind)
+
+
+def split_statements(source: Source, dialect: str | None) -> list[Statement]:
+    """The statements of ``source`` to replay (see ``split_file`` for the rest)."""
+    return split_file(source, dialect).statements
+
+
+# ---------------------------------------------------------------------------- tokens and units
+
+
+@dataclass
+class _Unit:
+    """Tokens sent together by a client tool; ``whole`` when they form one statement (DELIMITER)."""
+
+    tokens: list[Token]
+    whole: bool = False
+
+
+@dataclass
+class _Reader:
+    """The state of reading one file."""
+
+    text: str
+    dialect: Dialect
+    lines: LineIndex
+    comments: list[Comment] = field(default_factory=list)
+    findings: list[Finding] = field(default_factory=list)
+
+    @property
+    def path(self) -> str:
+        return self.lines.path
+
+    def finding(self, rule: str, severity: str, start: int, end: int, message: str) -> None:
+        """Record a finding over ``text[start:end]``."""
+        self.findings.append(Finding(rule, severity, self.lines.span(start, end), message))
+
+
+_NON_BLOCK_AFTER_BEGIN = frozenset(
+    {"TRANSACTION", "TRAN", "WORK", "DISTRIBUTED", "DEFERRED", "IMMEDIATE", "EXCLUSIVE",
+     "ISOLATION", "READ", "NOT", "DEFERRABLE", ";"}
+)
+_END_OF_UNCOUNTED = frozenset({"IF", "LOOP", "WHILE", "REPEAT", "FOR"})
+_PLSQL_OBJECTS = frozenset({"PROCEDURE", "FUNCTION", "PACKAGE", "TRIGGER", "TYPE", "LIBRARY"})
+_CREATE_MODIFIERS = frozenset(
+    {"OR", "REPLACE", "ALTER", "UNIQUE", "CLUSTERED", "NONCLUSTERED", "TEMP", "TEMPORARY", "GLOBAL",
+     "LOCAL", "UNLOGGED", "EDITIONABLE", "NONEDITIONABLE", "MATERIALIZED", "RECURSIVE", "FORCE"}
+)
+_STATEMENT_OBJECTS = frozenset(
+    {"TABLE", "INDEX", "VIEW", "SEQUENCE", "TYPE", "SCHEMA", "TRIGGER", "FUNCTION", "PROCEDURE",
+     "PROC", "DOMAIN", "EXTENSION", "DATABASE"}
+)
+_NOT_BEFORE_STATEMENT = frozenset({"GRANT", "REVOKE", "DENY", ",", "TO", "ON"})
+_QUOTED_TOKENS = frozenset(
+    {TokenType.STRING, TokenType.IDENTIFIER, TokenType.NATIONAL_STRING, TokenType.HEREDOC_STRING,
+     TokenType.RAW_STRING, TokenType.BYTE_STRING, TokenType.BIT_STRING, TokenType.HEX_STRING,
+     TokenType.UNICODE_STRING}
+)
+
+
+def _word(token: Token | None) -> str:
+    """A token's text in upper case ('' for no token)."""
+    return token.text.upper() if token is not None else ""
+
+
+def _tokenize(reader: _Reader, start: int, end: int) -> list[Token]:
+    """Tokenize ``text[start:end]`` into file coordinates and collect its comments.
+
+    When the tokenizer fails (an unterminated string ...) a ``syntax-error`` is reported at its
+    position and the tokens before that point are kept.
+    """
+    chunk = reader.text[start:end]
+    tokenizer = reader.dialect.tokenizer()
+    try:
+        tokens = tokenizer.tokenize(chunk)
+        stop = scan_end = end
+    except TokenError as error:
+        where, reason = _token_error(error, chunk, _comment_syntax(reader.dialect.tokenizer_class)[0])
+        stop = start + where
+        scan_end = end if reason is None else stop
+        if reason is not None:
+            skipped = reader.lines.position(end)[0] - reader.lines.position(stop)[0]
+            rest = f"; the {skipped} line(s) after it were not read" if skipped > 0 else ""
+            reader.finding("syntax-error", "error", stop, min(stop + 1, end), f"{reason}{rest}")
+        try:
+            tokens = tokenizer.tokenize(chunk[:where])
+        except TokenError:
+            tokens = []
+        if reason is not None:
+            # The statement the error is in is incomplete: keep only what ends with a ';'.
+            last = max((i for i, t in enumerate(tokens) if t.token_type == TokenType.SEMICOLON), default=-1)
+            del tokens[last + 1 :]
+    if start:
+        line0, column0 = reader.lines.position(start)
+        for token in tokens:
+            if token.line == 1:
+                token.col += column0 - 1
+            token.line += line0 - 1
+            token.start += start
+            token.end += start
+    _collect_comments(reader, tokens, start, scan_end)
+    return tokens
+
+
+def _token_error(error: TokenError, chunk: str, comment_syntax) -> tuple[int, str | None]:
+    """(offset in the chunk where the tokenizer gave up, reason) as far as its error tells.
+
+    The reason is None when the tokenizer ran off the end inside an unclosed block comment: the
+    comment scan reports that one itself.
+    """
+    cause = error.__cause__ or error.__context__
+    message = str(cause or "")
+    found = re.fullmatch(r"(Missing (.+?)|Numeric string .*?) from (\d+):(\d+)\s*", message)
+    if found:
+        where = min(int(found.group(4)), len(chunk))
+        if found.group(2):
+            return where, f"unterminated quoted text: no closing {found.group(2)} after this point"
+        return where, "invalid characters in a numeric string literal"
+    if isinstance(cause, IndexError):
+        opened = max((chunk.rfind(opener) for opener, closer in comment_syntax if closer), default=-1)
+        if opened >= 0:
+            return opened, None
+    if error.start:  # the context snippet runs 50 characters either side of the stop
+        where = min(error.start + 50, len(chunk))
+    elif error.end is not None and error.end < len(chunk) - 1:
+        where = max(error.end - 50, 0)
+    else:
+        where = 0
+    return where, "cannot split this text into SQL tokens"
+
+
+def _collect_comments(reader: _Reader, tokens: Sequence[Token], start: int, stop: int) -> None:
+    """Find the comments in the gaps between tokens (the tokenizer keeps them without positions)."""
+    previous = start
+    for token in tokens:
+        if token.start > previous:
+            _scan_gap(reader, previous, token.start)
+        previous = token.end + 1
+    if stop > previous:
+        _scan_gap(reader, previous, stop)
+
+
+@lru_cache(maxsize=None)
+def _comment_syntax(tokenizer_class: type) -> tuple[tuple[tuple[str, str | None], ...], bool]:
+    """The comment delimiters of a dialect, longest opener first, and whether ``/* */`` nests."""
+    pairs = [(c, None) if isinstance(c, str) else (c[0], c[1]) for c in tokenizer_class.COMMENTS]
+    pairs.append(("{#", "#}"))  # sqlglot reads Jinja comments in every dialect
+    pairs.sort(key=lambda pair: -len(pair[0]))
+    return tuple(pairs), bool(tokenizer_class.NESTED_COMMENTS)
+
+
+def _scan_gap(reader: _Reader, start: int, end: int) -> None:
+    """Record the comments in ``text[start:end]``, which holds only white space and comments."""
+    text = reader.text
+    syntax, nested = _comment_syntax(reader.dialect.tokenizer_class)
+    i = start
+    while i < end:
+        if text[i].isspace():
+            i += 1
+            continue
+        for opener, closer in syntax:
+            if text.startswith(opener, i):
+                break
+        else:
+            i += 1
+            continue
+        body = i + len(opener)
+        if closer is None:
+            stop = text.find("\n", body, end)
+            stop = end if stop < 0 else stop
+            inner_end = stop - 1 if stop > body and text[stop - 1] == "\r" else stop
+            after = stop
+        else:
+            after, inner_end = _block_end(text, body, end, opener, closer, nested)
+            if inner_end < 0:
+                reader.finding(
+                    "syntax-error", "error", i, i + len(opener),
+                    f"comment opened with {opener} is never closed: the rest of the file is ignored",
+                )
+                inner_end = after
+        shown = inner_end if closer is None else after  # a line comment's span stops before \r
+        reader.comments.append(
+            Comment(text[body:inner_end], reader.lines.span(i, shown), start=i, end=after)
+        )
+        i = after
+
+
+def _block_end(text: str, body: int, end: int, opener: str, closer: str, nested: bool) -> tuple[int, int]:
+    """(offset after the closer, offset of the closer) of a block comment; (end, -1) if unclosed."""
+    depth, i = 1, body
+    while i < end:
+        close = text.find(closer, i, end)
+        if close < 0:
+            return end, -1
+        if nested:
+            inner = text.find(opener, i, close)
+            if inner >= 0:
+                depth += 1
+                i = inner + len(opener)
+                continue
+        depth -= 1
+        if depth == 0:
+            return close + len(closer), close
+        i = close + len(closer)
+    return end, -1
+
+
+# ---------------------------------------------------------------------------- client separators
+
+
+def _units(reader: _Reader) -> list[_Unit]:
+    """Tokenize the file and cut it where the dialect's client tool would send a batch."""
+    tokens = _tokenize(reader, 0, len(reader.text))
+    dialect = reader.dialect
+    if isinstance(dialect, TSQL):
+        return _cut_at_lines(tokens, _is_go)
+    if isinstance(dialect, Oracle):
+        return _cut_at_lines(tokens, _is_slash)
+    if isinstance(dialect, Postgres):
+        return _cut_at_lines(tokens, _psql_meta)
+    if isinstance(dialect, MySQL):
+        return _mysql_units(reader, tokens)
+    return [_Unit(tokens)]
+
+
+def _alone_on_line(tokens: Sequence[Token], i: int, width: int) -> int:
+    """``width`` when tokens[i : i + width] fill their line, else 0 (a token's line is its last)."""
+    first, last = tokens[i], tokens[i + width - 1]
+    if i > 0 and tokens[i - 1].line == first.line:
+        return 0
+    if i + width < len(tokens) and tokens[i + width].line == last.line:
+        return 0
+    return width
+
+
+def _is_slash(tokens: Sequence[Token], i: int) -> int:
+    """1 when tokens[i] is a SQL*Plus ``/`` line (send the buffer), else 0."""
+    return _alone_on_line(tokens, i, 1) if tokens[i].token_type == TokenType.SLASH else 0
+
+
+def _is_go(tokens: Sequence[Token], i: int) -> int:
+    """How many tokens a sqlcmd ``GO`` / ``GO <count>`` line takes at ``i`` (0: not one)."""
+    if _word(tokens[i]) != "GO":
+        return 0
+    if i + 1 < len(tokens) and tokens[i + 1].token_type == TokenType.NUMBER:
+        width = _alone_on_line(tokens, i, 2)
+        if width:
+            return width
+    return _alone_on_line(tokens, i, 1)
+
+
+def _psql_meta(tokens: Sequence[Token], i: int) -> int:
+    """How many tokens a psql meta-command line (``\\c db``, ``\\set x 1``) takes at ``i``."""
+    token = tokens[i]
+    if token.token_type != TokenType.BACKSLASH or (i > 0 and tokens[i - 1].line == token.line):
+        return 0
+    width = 1
+    while i + width < len(tokens) and tokens[i + width].line == token.line:
+        width += 1
+    return width
+
+
+def _cut_at_lines(tokens: list[Token], separator) -> list[_Unit]:
+    """Cut the tokens at separator lines found by ``separator(tokens, i) -> width``."""
+    units, current, i = [], [], 0
+    while i < len(tokens):
+        width = separator(tokens, i)
+        if width:
+            units.append(_Unit(current))
+            current = []
+            i += width
+        else:
+            current.append(tokens[i])
+            i += 1
+    units.append(_Unit(current))
+    return [unit for unit in units if unit.tokens]
+
+
+def _mysql_units(reader: _Reader, tokens: list[Token]) -> list[_Unit]:
+    """Honour the mysql client's ``DELIMITER xx`` lines: text up to ``xx`` is one statement."""
+    marks = [
+        i for i, token in enumerate(tokens)
+        if _word(token) == "DELIMITER" and (i == 0 or tokens[i - 1].line < token.line)
+    ]
+    if not marks:
+        return [_Unit(tokens)]
+    text = reader.text
+    units = [_Unit(tokens[: marks[0]])]
+    for n, mark in enumerate(marks):
+        line_end = text.find("\n", tokens[mark].end)
+        line_end = len(text) if line_end < 0 else line_end
+        words = text[tokens[mark].end + 1 : line_end].split()
+        delimiter = words[0] if words else ";"
+        region_end = tokens[marks[n + 1]].start if n + 1 < len(marks) else len(text)
+        after = [t for t in tokens[mark + 1 :] if t.start > line_end and t.end < region_end]
+        if delimiter == ";":
+            units.append(_Unit(after))
+            continue
+        # The tokens of this region may run over the delimiter (END$$): tokenize each piece anew.
+        cuts = _delimiter_cuts(reader, after, delimiter, line_end, region_end)
+        reader.comments = [c for c in reader.comments if not line_end <= c.start < region_end]
+        piece_start = line_end
+        for cut in cuts:
+            units.append(_Unit(_tokenize(reader, piece_start, cut), whole=True))
+            piece_start = cut + len(delimiter)
+        units.append(_Unit(_tokenize(reader, piece_start, region_end), whole=True))
+    return [unit for unit in units if unit.tokens]
+
+
+def _delimiter_cuts(reader: _Reader, tokens: Sequence[Token], delimiter: str, start: int, end: int) -> list[int]:
+    """Offsets of ``delimiter`` in ``text[start:end]`` outside strings, quoted names and comments."""
+    quoted = [(t.start, t.end) for t in tokens if t.token_type in _QUOTED_TOKENS]
+    comments = [(c.start, c.end - 1) for c in reader.comments if start <= c.start < end]
+    blocked = sorted(quoted + comments)
+    starts = [a for a, _ in blocked]
+    cuts, i = [], reader.text.find(delimiter, start, end)
+    while i >= 0:
+        k = bisect.bisect_right(starts, i) - 1
+        if k >= 0 and blocked[k][0] <= i <= blocked[k][1]:
+            i = reader.text.find(delimiter, blocked[k][1] + 1, end)
+            continue
+        cuts.append(i)
+        i = reader.text.find(delimiter, i + len(delimiter), end)
+    return cuts
+
+
+# ---------------------------------------------------------------------------- statements
+
+
+def _statement_slices(unit: _Unit, dialect: Dialect) -> Iterator[tuple[list[Token], Token | None]]:
+    """Cut a unit at top-level ``;`` tokens, keeping ``BEGIN ... END`` bodies whole.
+
+    Yields (tokens without the ``;``, the ``;`` token or None). In Oracle a PL/SQL block runs to
+    the end of its unit, as in SQL*Plus; a block that never closes is cut at every ``;``.
+    """
+    tokens = unit.tokens
+    if unit.whole:
+        yield tokens, None
+        return
+    oracle = isinstance(dialect, Oracle)
+    begin, depth, parens, i = 0, 0, 0, 0
+    while i < len(tokens):
+        token = tokens[i]
+        kind = token.token_type
+        word = _word(token)
+        if i == begin and oracle and _is_plsql_head(tokens, i):
+            yield tokens[i:], None
+            return
+        if kind == TokenType.SEMICOLON and depth == 0:
+            if i > begin:
+                yield tokens[begin:i], token
+            begin, parens = i + 1, 0
+        elif kind == TokenType.L_PAREN:
+            parens += 1
+        elif kind == TokenType.R_PAREN:
+            parens = max(parens - 1, 0)
+        elif parens:
+            pass
+        elif word == "BEGIN":
+            following = _word(tokens[i + 1]) if i + 1 < len(tokens) else ";"
+            if following not in _NON_BLOCK_AFTER_BEGIN:
+                depth += 1
+        elif word == "CASE" and depth:
+            depth += 1
+        elif word == "END" and depth:
+            following = _word(tokens[i + 1]) if i + 1 < len(tokens) else ""
+            if following in _END_OF_UNCOUNTED:
+                i += 1
+            else:
+                depth -= 1
+                if following == "CASE":
+                    i += 1
+        i += 1
+    if begin < len(tokens):
+        rest = tokens[begin:]
+        if depth:  # an unbalanced block: fall back to every ';'
+            start = 0
+            for k, token in enumerate(rest):
+                if token.token_type == TokenType.SEMICOLON:
+                    if k > start:
+                        yield rest[start:k], token
+                    start = k + 1
+            if start < len(rest):
+                yield rest[start:], None
+        else:
+            yield rest, None
+
+
+def _is_plsql_head(tokens: Sequence[Token], i: int) -> bool:
+    """True at ``DECLARE``, ``BEGIN`` or ``CREATE [OR REPLACE] PROCEDURE|FUNCTION|PACKAGE|...``."""
+    word = _word(tokens[i])
+    if word in ("DECLARE", "BEGIN"):
+        return True
+    if word != "CREATE":
+        return False
+    for token in tokens[i + 1 : i + 6]:
+        word = _word(token)
+        if word in _PLSQL_OBJECTS:
+            return True
+        if word not in _CREATE_MODIFIERS:
+            return False
+    return False
+
+
+def _restart_points(tokens: Sequence[Token]) -> list[int]:
+    """Indexes where a new DDL statement starts inside these tokens (a missing ``;``)."""
+    points, parens, depth = [], 0, 0
+    head = _word(tokens[0])
+    for i, token in enumerate(tokens):
+        kind = token.token_type
+        if kind == TokenType.L_PAREN:
+            parens += 1
+        elif kind == TokenType.R_PAREN:
+            parens = max(parens - 1, 0)
+        word = _word(token)
+        if word == "BEGIN":
+            depth += 1
+        elif word == "END" and depth:
+            depth -= 1
+        if i == 0 or parens or depth or _word(tokens[i - 1]) in _NOT_BEFORE_STATEMENT:
+            continue
+        if word == "CREATE" or (word in ("ALTER", "DROP") and head != "ALTER"):
+            if _names_object(tokens, i):
+                points.append(i)
+        elif word == "ALTER" and _word(_at(tokens, i + 1)) in ("TABLE", "VIEW", "SEQUENCE", "TYPE"):
+            points.append(i)
+    return points
+
+
+def _at(tokens: Sequence[Token], i: int) -> Token | None:
+    """tokens[i], or None past the end."""
+    return tokens[i] if i < len(tokens) else None
+
+
+def _names_object(tokens: Sequence[Token], i: int) -> bool:
+    """True when the keyword at ``i`` is followed (after modifiers) by an object kind."""
+    for token in tokens[i + 1 : i + 6]:
+        word = _word(token)
+        if word in _STATEMENT_OBJECTS:
+            return True
+        if word not in _CREATE_MODIFIERS:
+            return False
+    return False
+
+
+def _opaque_ddl(tokens: Sequence[Token]) -> bool:
+    """True for CREATE TABLE, CREATE UNIQUE INDEX and ALTER TABLE ... ADD/DROP/RENAME text."""
+    words = [_word(t) for t in tokens[:8]]
+    if not words:
+        return False
+    if words[0] == "CREATE":
+        rest = [w for w in words[1:] if w not in ("OR", "REPLACE", "GLOBAL", "LOCAL", "TEMP", "TEMPORARY", "UNLOGGED")]
+        if rest[:1] == ["TABLE"]:
+            return True
+        rest = [w for w in rest if w not in ("CLUSTERED", "NONCLUSTERED")]
+        return rest[:2] == ["UNIQUE", "INDEX"]
+    if words[:2] == ["ALTER", "TABLE"]:
+        parens = 0
+        for token in tokens[2:]:
+            if token.token_type == TokenType.L_PAREN:
+                parens += 1
+            elif token.token_type == TokenType.R_PAREN:
+                parens -= 1
+            elif parens == 0 and _word(token) in ("ADD", "DROP", "RENAME"):
+                return True
+    return False
+
+
+def _is_fragment(expression: exp.Expression) -> bool:
+    """A root that is no statement (``END`` parsed as a column ...): left by a body cut at ``;``."""
+    if isinstance(expression, exp.EndStatement):
+        return True
+    return isinstance(expression, (exp.Condition, exp.Alias)) and not isinstance(expression, exp.Query)
+
+
+_CLASS_NAME = re.compile(r"<class '(?:[\w.]*\.)?(\w+)'>")
+
+
+def _clean_message(error: ParseError) -> tuple[str, str]:
+    """(sqlglot's description without Python class names, the text it points at)."""
+    first = error.errors[0] if error.errors else {}
+    description = str(first.get("description") or str(error).split("\n")[0])
+    description = _CLASS_NAME.sub(lambda m: m.group(1), description).strip().rstrip(".")
+    return re.sub(r"\s+", " ", description), str(first.get("highlight") or "")
+
+
+def _describe(tokens: Sequence[Token]) -> str:
+    """The leading keywords of a statement, for messages (``CREATE UNIQUE INDEX``)."""
+    words: list[str] = []
+    for token in tokens[:4]:
+        if token.token_type in _QUOTED_TOKENS or not token.text.replace("_", "").isalpha():
+            break
+        words.append(token.text.upper())
+        if words[-1] in _STATEMENT_OBJECTS or words[0] not in ("CREATE", "ALTER", "DROP"):
+            break
+    return " ".join(words) or "this"
+
+
+class _Parser:
+    """Parses statements of one file from their tokens and classifies the results."""
+
+    def __init__(self, reader: _Reader) -> None:
+        self.reader = reader
+        self.parser = reader.dialect.parser(error_level=ErrorLevel.IMMEDIATE)
+        self.tsql = isinstance(reader.dialect, TSQL)
+
+    def statements(self, tokens: list[Token], terminator: Token | None) -> list[Statement]:
+        """The statement(s) in ``tokens``: one, or several when a ``;`` was missing between them."""
+        if self.tsql:  # T-SQL needs no ';' between statements
+            points = _restart_points(tokens)
+            if points:
+                return self._pieces(tokens, points, terminator, warn=False)
+        statements = self._parse_all(tokens, terminator)
+        statement = statements[0]
+        if len(statements) == 1 and statement.kind in ("error", "command", "opaque"):
+            points = _restart_points(tokens)
+            if points:
+                return self._pieces(tokens, points, terminator, warn=True)
+        return statements
+
+    def _parse_all(self, tokens: list[Token], terminator: Token | None) -> list[Statement]:
+        """Parse tokens meant as one statement; cut them at every ``;`` if they hold several."""
+        statement = self._parse(tokens, terminator)
+        return self._at_every_semicolon(tokens, terminator) if statement.kind == "merged" else [statement]
+
+    def _at_every_semicolon(self, tokens: list[Token], terminator: Token | None) -> list[Statement]:
+        """Parse the pieces between every ``;`` of ``tokens`` as statements of their own."""
+        result, start = [], 0
+        for k, token in enumerate(tokens):
+            if token.token_type == TokenType.SEMICOLON:
+                if k > start:
+                    result.append(self._parse(tokens[start:k], token))
+                start = k + 1
+        if start < len(tokens):
+            result.append(self._parse(tokens[start:], terminator))
+        return result
+
+    def _pieces(self, tokens: list[Token], points: list[int], terminator: Token | None, warn: bool) -> list[Statement]:
+        """Parse each piece between restart points; warn about the missing ``;``."""
+        bounds = [0, *points, len(tokens)]
+        result = []
+        for n, (a, b) in enumerate(zip(bounds, bounds[1:])):
+            if warn and a:
+                token = tokens[a]
+                self.reader.finding(
+                    "syntax-error", "warning", token.start, token.end + 1,
+                    f"missing ';' before this {_describe(tokens[a:])}: read as the start of a new statement",
+                )
+            last = n == len(bounds) - 2
+            result.extend(self._parse_all(tokens[a:b], terminator if last else None))
+        return result
+
+    def _parse(self, tokens: list[Token], terminator: Token | None) -> Statement:
+        """Parse tokens that hold one statement."""
+        reader = self.reader
+        start, stop = tokens[0].start, tokens[-1].end + 1
+        end = terminator.end + 1 if terminator is not None else stop
+        statement = Statement(
+            None, reader.text[start:stop], reader.lines.span(start, stop), start, (), False,
+            kind="error", end=end, lines=reader.lines,
+        )
+        try:
+            parsed = [
+                e for e in self.parser.parse(tokens, reader.text)
+                if e is not None and not isinstance(e, exp.Semicolon)
+            ]
+        except ParseError as error:
+            self._report(statement, tokens, error)
+            return statement
+        except RecursionError:
+            reader.finding("syntax-error", "error", start, stop, f"{_describe(tokens)} statement is nested too deeply to read")
+            return statement
+        except Exception as error:  # sqlglot itself failed: report, never crash
+            reader.finding(
+                "syntax-error", "error", start, stop,
+                f"sqlglot could not read this {_describe(tokens)} statement ({error!s:.80})",
+            )
+            return statement
+        if not parsed:
+            statement.kind = "command"
+            return statement
+        expression = parsed[0]
+        statement.expression = expression
+        if len(parsed) > 1 and not isinstance(expression, exp.Command):
+            statement.kind = "merged"  # a BEGIN ... END guess joined statements: the caller cuts
+        elif len(parsed) > 1 or isinstance(expression, exp.Command):
+            statement.opaque = _opaque_ddl(tokens)
+            statement.kind = "opaque" if statement.opaque else "command"
+        elif _is_fragment(expression):
+            statement.kind = "fragment"
+        else:
+            statement.kind = "ast"
+        return statement
+
+    def _report(self, statement: Statement, tokens: Sequence[Token], error: ParseError) -> None:
+        """A ``syntax-error`` at the token sqlglot stopped at."""
+        lines = self.reader.lines
+        description, highlight = _clean_message(error)
+        first = error.errors[0] if error.errors else {}
+        start, stop = statement.offset, statement.offset + len(statement.text)
+        if first.get("line") and first.get("col") and highlight:
+            last = lines.offset(int(first["line"]), int(first["col"]))
+            begin = last - len(highlight) + 1
+            if statement.offset <= begin <= last < stop and self.reader.text[begin : last + 1] == highlight:
+                start, stop = begin, last + 1
+        near = f" near '{highlight[:40]}'" if highlight else ""
+        where = ""
+        if lines.position(start)[0] != statement.span.line:
+            where = f" (statement starts on line {statement.span.line})"
+        self.reader.finding(
+            "syntax-error", "error", start, stop,
+            f"cannot parse {_describe(tokens)} statement: {description}{near}{where}",
+        )
+
+
+@contextmanager
+def _quiet_sqlglot() -> Iterator[None]:
+    """Silence sqlglot's 'falling back to Command' warnings: the reader reports those itself."""
+    logger = logging.getLogger("sqlglot")
+    level = logger.level
+    logger.setLevel(logging.ERROR)
+    try:
+        yield
+    finally:
+        logger.setLevel(level)
+
+
+def _attach_comments(statements: list[Statement], comments: list[Comment], lines: LineIndex) -> tuple[Comment, ...]:
+    """Give each comment to the statement it is in or above; return those after the last one.
+
+    A comment that starts on the line where a statement ends (after its ``;``) belongs to that
+    statement, unless the next statement starts on the same line as the comment ends.
+    """
+    owned: list[list[Comment]] = [[] for _ in statements]
+    ends = [s.end for s in statements]
+    trailing: list[Comment] = []
+    for comment in sorted(comments, key=lambda c: c.start):
+        k = bisect.bisect_right(ends, comment.start)
+        inside = k < len(statements) and comment.start >= statements[k].offset
+        if k > 0 and not inside:
+            before = statements[k - 1]
+            end_line = lines.position(before.end - 1)[0]
+            next_line = statements[k].span.line if k < len(statements) else -1
+            if comment.span.line == end_line and comment.span.end_line != next_line:
+                owned[k - 1].append(comment)
+                continue
+        if k < len(statements):
+            owned[k].append(comment)
+        else:
+            trailing.append(comment)
+    for statement, mine in zip(statements, owned):
+        statement.comments = tuple(mine)
+    return tuple(trailing)
+
+
+def split_file(source: Source, dialect: str | None) -> Script:
+    """Read the statements of one file in the given sqlglot dialect.
+
+    Raises ``UnknownDialectError`` for a dialect sqlglot does not know; every problem in the file
+    itself becomes a finding (``syntax-error``) and reading goes on with the next statement.
+    """
+    sqlglot_dialect = get_dialect(dialect)
+    script = Script(source.path, findings=list(source.problems))
+    if source.skipped or not source.text:
+        return script
+    lines = LineIndex(source.path, source.text)
+    reader = _Reader(source.text, sqlglot_dialect, lines)
+    everything: list[Statement] = []
+    with _quiet_sqlglot():
+        parser = _Parser(reader)
+        for unit in _units(reader):
+            for tokens, terminator in _statement_slices(unit, sqlglot_dialect):
+                everything.extend(parser.statements(tokens, terminator))
+    script.trailing_comments = _attach_comments(everything, reader.comments, lines)
+    for statement in everything:
+        (script.skipped if statement.kind in ("command", "fragment") else script.statements).append(statement)
+    script.findings.extend(sorted(reader.findings, key=lambda f: (f.span.line, f.span.column)))
+    return script
