@@ -5,8 +5,8 @@
 >>> with open(os.path.join(folder, ".normguard.yaml"), "w") as out:
 ...     _ = out.write("paths: [db]\\ntarget: 3nf\\ntables:\\n  couriers:\\n    dependencies: [depot -> city]\\n")
 >>> config = load_config(cwd=folder)
->>> config.paths, config.target, config.target_for("couriers"), config.fail_on
-(('db',), '3nf', '3nf', 'warning')
+>>> config.paths, config.target, config.fail_on
+(('db',), '3nf', 'warning')
 >>> config.tables["couriers"].dependencies[0].span.line
 5
 
@@ -77,11 +77,6 @@ class Config:
     down_migrations: str = "skip"
     fail_on: str = "warning"
     source: str | None = None
-
-    def target_for(self, table: str) -> str:
-        """The normal form ``table`` must reach: its own setting, else the global target."""
-        settings = self.tables.get(table)
-        return settings.target if settings and settings.target else self.target
 
     def dialect_for(self, path: str) -> str:
         """The dialect of the file at ``path``: the deepest ``dialects`` folder holding it, or ``dialect``."""
