@@ -51,9 +51,10 @@ def attach_comments(state: ReplayState, comments: Iterable[Comment], host: str |
 def _target(state: ReplayState, kind: str, name: str | None, span: Span) -> Table | None:
     """The table an annotation speaks about: the one it names, else the CREATE TABLE it sits on."""
     if name is None:
-        shape = "fd <table>: a -> b" if kind == "fd" else "allow ... on a CREATE TABLE"
-        _error(state, span, f"this {kind} annotation is not above or inside a CREATE TABLE, so it cannot "
-                            f"tell which table it is about (write normguard: {shape})")
+        message = ("this fd annotation is not above or inside a CREATE TABLE, so it must name its table: "
+                   "normguard: fd <table>: a -> b") if kind == "fd" else \
+            "an allow annotation belongs above or inside the CREATE TABLE of the table it is about"
+        _error(state, span, message)
         return None
     table = state.table(name)
     if table is None:
