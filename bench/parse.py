@@ -49,9 +49,9 @@ def _files(paths: list[str]) -> list[Path]:
     return sorted(found)
 
 
-def _worker(pure: bool, dialect: str, paths: list[str]) -> dict[str, object]:
+def _worker(sources: bool, dialect: str, paths: list[str]) -> dict[str, object]:
     """Time ``import sqlglot`` and the parse of every file (best of three) in this interpreter."""
-    if pure:
+    if sources:
         sys.meta_path.insert(0, _SourceOnly())
     start = time.perf_counter()
     import sqlglot
@@ -75,19 +75,28 @@ def _worker(pure: bool, dialect: str, paths: list[str]) -> dict[str, object]:
     }
 
 
-def _measure(python: str, pure: bool, args: argparse.Namespace) -> dict[str, object]:
-    """Median timings over ``args.runs`` fresh interpreters."""
-    command = [python, str(_HERE), "--worker", "pure" if pure else "compiled", "--dialect", args.dialect]
-    subprocess.run([*command, *args.paths], capture_output=True, check=True)  # warm the bytecode cache
-    runs = []
+def _measure(args: argparse.Namespace) -> tuple[dict[str, object], dict[str, object]]:
+    """Median timings over ``args.runs`` fresh interpreters, compiled and pure runs interleaved."""
+    def command(python: str, mode: str) -> list[str]:
+        return [python, str(_HERE), "--worker", mode, "--dialect", args.dialect, *args.paths]
+
+    pure = (args.pure_python, "as-installed") if args.pure_python else (sys.executable, "sources")
+    commands = (command(sys.executable, "as-installed"), command(*pure))
+    for warm in commands:  # fill the bytecode caches before timing
+        subprocess.run(warm, capture_output=True, check=True)
+    runs: tuple[list[dict[str, object]], list[dict[str, object]]] = ([], [])
     for _ in range(args.runs):
-        out = subprocess.run([*command, *args.paths], capture_output=True, text=True, check=True)
-        runs.append(json.loads(out.stdout))
-    return {
-        **runs[0],
-        "import": statistics.median(float(r["import"]) for r in runs),
-        "parse": statistics.median(float(r["parse"]) for r in runs),
-    }
+        for found, cmd in zip(runs, commands):
+            out = subprocess.run(cmd, capture_output=True, text=True, check=True)
+            found.append(json.loads(out.stdout))
+    return tuple(  # type: ignore[return-value]
+        {
+            **found[0],
+            "import": statistics.median(float(r["import"]) for r in found),
+            "parse": statistics.median(float(r["parse"]) for r in found),
+        }
+        for found in runs
+    )
 
 
 def main() -> int:
@@ -97,13 +106,12 @@ def main() -> int:
     parser.add_argument("--dialect", default="postgres")
     parser.add_argument("--runs", type=int, default=5)
     parser.add_argument("--pure-python", help="interpreter with plain sqlglot (no sqlglotc)")
-    parser.add_argument("--worker", choices=["pure", "compiled"], help=argparse.SUPPRESS)
+    parser.add_argument("--worker", choices=["as-installed", "sources"], help=argparse.SUPPRESS)
     args = parser.parse_args()
     if args.worker:
-        print(json.dumps(_worker(args.worker == "pure", args.dialect, args.paths)))
+        print(json.dumps(_worker(args.worker == "sources", args.dialect, args.paths)))
         return 0
-    compiled = _measure(sys.executable, False, args)
-    pure = _measure(args.pure_python or sys.executable, not args.pure_python, args)
+    compiled, pure = _measure(args)
     if not compiled["compiled"] or pure["compiled"]:
         print("bench: sqlglotc is not installed here, or the pure run still loaded it", file=sys.stderr)
         return 2
