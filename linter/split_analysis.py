@@ -38,7 +38,7 @@ from linter.dependencies import (
     project,
 )
 from linter.given_dependencies import GivenDependency, given_dependencies
-from linter.model import Split
+from linter.model import Column, Dependency, Split, Table
 
 
 @dataclass(frozen=True)
@@ -160,6 +160,14 @@ def _reason(split: Split, source: str | None) -> str:
     if split.how == "declared":
         return f"has no column of the same name in {split.original}"
     return f"is not filled from {split.original}"
+
+
+def carried_table(analysis: SplitAnalysis) -> Table:
+    """The original cut down to the columns the pieces carry, F projected: what an alternative splits."""
+    split, attrs, span = analysis.split, analysis.attrs, analysis.split.span
+    columns = [Column(name, "", False, span) for name in attrs.to_names(analysis.relation)]
+    declared = [Dependency(attrs.to_names(fd.lhs), attrs.to_names(fd.rhs), span, "split") for fd in analysis.fds]
+    return Table(split.original, span, columns, dependencies=declared)
 
 
 def caveats(analysis: SplitAnalysis) -> list[str]:
