@@ -4,7 +4,7 @@ It renders the table record of the audit data (see ``linter.audit.data``); every
 user's files goes through ``html.escape``.
 
 >>> record = {"name": "<ferry>", "path": "db/1.sql", "line": 2, "normal_form": "BCNF",
-...           "meets_target": True, "columns": [], "keys": [], "keys_complete": True,
+...           "meets_target": True, "columns": [], "keys": [], "keys_complete": True, "has_declared_key": False,
 ...           "dependencies": [], "findings": [], "decomposition": None, "history": []}
 >>> html = table_section(record, "t1")
 >>> "&lt;ferry&gt;" in html and "<ferry>" not in html
@@ -20,6 +20,11 @@ from linter.audit.diagram import dependency_svg
 from linter.audit.layout import Arrow
 
 Record = Mapping[str, Any]
+_LEGEND = (
+    ("key", "determined by a key (drawn below)"),
+    ("violation", "breaks the target normal form (above)"),
+    ("other", "other dependency (above)"),
+)
 
 
 def e(value: object) -> str:
@@ -58,7 +63,7 @@ def table_section(record: Record, anchor: str) -> str:
         "<h3>Dependency diagram</h3>",
         _diagram(record),
         f"<h3>Dependencies</h3>{_dependencies(record['dependencies'])}",
-        f"<h3>Findings</h3>{_findings(record['findings'])}",
+        f"<h3>Violations and other findings</h3>{_findings(record['findings'])}",
         f"<h3>Proposed decomposition</h3>{_decomposition(record['decomposition'])}",
         f"<h3>History</h3>{_history(record['history'])}",
         "</section>",
@@ -82,8 +87,11 @@ def _columns(columns: Sequence[Record]) -> str:
 def _keys(record: Record) -> str:
     """Each candidate key with the constraints that declare it, or a note that it was derived."""
     keys = record["keys"]
-    if not keys:
-        return '<p class="empty">No key: rows may repeat.</p>'
+    if not record["has_declared_key"]:
+        return (
+            '<p class="empty">No declared key: the table can hold the same row twice. '
+            "Only the whole row could act as one.</p>"
+        )
     items = []
     for key in keys:
         declared = "; ".join(f"{e(d['source'])} at {where(d)}" for d in key["declared"])
@@ -112,13 +120,10 @@ def _diagram(record: Record) -> str:
         notes={c["name"]: c["type"] for c in record["columns"]},
         title=f"Dependency diagram of {record['name']}",
     )
-    legend = (
-        '<ul class="legend"><li><span class="line key-line"></span>determined by a key (below)</li>'
-        '<li><span class="line violation-line"></span>breaks the target normal form (above)</li>'
-        '<li><span class="line other-line"></span>other dependency (above)</li>'
-        "<li><u>underlined</u>: primary key \u00b7 <b>bold</b>: part of a candidate key</li></ul>"
-    )
-    return f'<div class="diagram">{svg}</div>{legend}'
+    kinds = {arrow.kind for arrow in arrows}
+    legend = "".join(f'<li><span class="line {kind}-line"></span>{text}</li>' for kind, text in _LEGEND if kind in kinds)
+    legend += "<li><u>underlined</u>: primary key \u00b7 <b>bold</b>: part of a candidate key</li>"
+    return f'<div class="diagram">{svg}</div><ul class="legend">{legend}</ul>'
 
 
 def _dependencies(dependencies: Sequence[Record]) -> str:
@@ -152,15 +157,15 @@ def _decomposition(decomposition: Record | None) -> str:
     if decomposition is None:
         return '<p class="empty">None needed: the table meets the target.</p>'
     pieces = "".join(
-        f'<div class="piece"><div>{names(p["columns"])}</div>'
-        f'<div class="loc">key: {" | ".join(", ".join(map(e, k)) for k in p["keys"]) or "all columns"}</div></div>'
+        f'<div class="piece"><b>{e(p["name"])}</b><div>{names(p["columns"])}</div>'
+        f'<div class="loc">{"key" if len(p["keys"]) == 1 else "keys"}: '
+        f'{" | ".join(", ".join(map(e, k)) for k in p["keys"])}</div></div>'
         for p in decomposition["pieces"]
     )
     lost = "".join(f"<li>{names(d['lhs'])} \u2192 {names(d['rhs'])}</li>" for d in decomposition["lost"])
     lost_html = f"<p>Not enforceable in any one piece:</p><ul>{lost}</ul>" if lost else ""
-    sql = f"<pre>{e(decomposition['sql'])}</pre>" if decomposition.get("sql") else ""
     return (
-        f"<p>{e(decomposition['method'])}:</p><div class=\"pieces\">{pieces}</div>{lost_html}{sql}"
+        f"<p>A {e(decomposition['method'])}:</p><div class=\"pieces\">{pieces}</div>{lost_html}"
         f'<p class="caution">{e(decomposition["caution"])}</p>'
     )
 

@@ -40,6 +40,7 @@ a { color: var(--accent); text-decoration: none; }
 a:hover { text-decoration: underline; }
 code, .mono, .loc { font-family: ui-monospace, "DejaVu Sans Mono", Menlo, Consolas, monospace; font-size: .88em; }
 code { background: var(--code); padding: 1px 5px; border-radius: 4px; }
+td code { white-space: nowrap; }
 .loc { color: var(--muted); white-space: nowrap; }
 .lede { color: var(--muted); margin: 0 0 22px; }
 .panel {
