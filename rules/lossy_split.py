@@ -7,7 +7,7 @@
 ...               (piece("lots", ("lot_id", "species")), piece("collectors", ("species", "collector"))),
 ...               at, "data")
 >>> [f.message for f in check(Context(Catalog(splits=[split]), {}))]
-['split of seed_lots into lots and collectors is lossy: joined back on their common column species, they give rows seed_lots never held']
+['split of seed_lots into lots and collectors is lossy: joining them back on their common column species gives rows seed_lots never held']
 """
 from __future__ import annotations
 
@@ -33,20 +33,20 @@ def check(context: Context) -> Iterator[Finding]:
                 ID,
                 RULE.severity,
                 split.span,
-                f"split of {split.original} into {pieces} is lossy: joined back on {_common(analysis)},"
-                f" they give rows {split.original} never held",
+                f"split of {split.original} into {pieces} is lossy: {_joined(analysis)}"
+                f" gives rows {split.original} never held",
                 split.original,
                 explanation=_explanation(analysis),
             )
 
 
-def _common(analysis: SplitAnalysis) -> str:
-    """The columns the pieces share, as the message names them."""
+def _joined(analysis: SplitAnalysis) -> str:
+    """How the pieces join back, naming the columns they share."""
     shared = _shared(analysis)
     if not shared:
-        return "no common column"
+        return "they share no column, so joining them back pairs every row with every other and"
     noun = "column" if shared.bit_count() == 1 else "columns"
-    return f"their common {noun} {analysis.attrs.format(shared)}"
+    return f"joining them back on their common {noun} {analysis.attrs.format(shared)}"
 
 
 def _shared(analysis: SplitAnalysis) -> int:
@@ -60,8 +60,8 @@ def _shared(analysis: SplitAnalysis) -> int:
 def _explanation(analysis: SplitAnalysis) -> list[str]:
     """Which side the common columns would need to be a key of, the chase's example, the fix."""
     lines = [_pair_line(analysis, first, second) for first, second in combinations(analysis.carrying, 2)]
-    lines += _example(analysis)
     lines += caveats(analysis)
+    lines += _example(analysis)
     lines.append(_fix(analysis))
     return lines
 
