@@ -24,7 +24,6 @@ tested against the original restricted to what they carry (F projected onto it).
 """
 from __future__ import annotations
 
-from collections.abc import Iterable, Sequence
 from dataclasses import dataclass, field
 from functools import lru_cache
 
@@ -32,6 +31,7 @@ from linter.dependencies import (
     FD,
     Attributes,
     ChaseResult,
+    Projection,
     chase_is_lossless,
     minimal_cover,
     preserves_dependencies,
@@ -61,7 +61,7 @@ class SplitAnalysis:
     fds: tuple[FD, ...]  # F projected onto ``relation``
     pieces: tuple[int, ...]  # per piece of ``split.pieces``, the original columns it carries
     untraced: tuple[Untraced, ...]
-    decided: bool  # False when F could only be projected in part: no verdict is given then
+    undecided: str  # why no verdict is given (nothing traced, F projected in part), else ""
     chase: ChaseResult
     cover: tuple[FD, ...]  # a minimal cover of ``fds``
     lost: tuple[FD, ...]  # the dependencies of ``cover`` the pieces do not preserve
@@ -128,11 +128,20 @@ def _analyze(split: Split) -> SplitAnalysis:
         fds=fds,
         pieces=pieces,
         untraced=untraced,
-        decided=projection is None or projection.complete,
+        undecided=_undecided(split, relation, projection),
         chase=chase_is_lossless(relation, fds, carried),
         cover=cover,
         lost=tuple(preserves_dependencies(cover, carried)),
     )
+
+
+def _undecided(split: Split, relation: int, projection: Projection | None) -> str:
+    """Why the verdicts would be guesses, or "" when they are not."""
+    if not relation:
+        return f"no piece column could be traced to a column of {split.original}"
+    if projection is not None and not projection.complete:
+        return "the dependencies of the carried columns could only be projected in part"
+    return ""
 
 
 def _trace(split: Split, attrs: Attributes) -> tuple[tuple[int, ...], tuple[Untraced, ...]]:
@@ -168,27 +177,3 @@ def carried_table(analysis: SplitAnalysis) -> Table:
     columns = [Column(name, "", False, span) for name in attrs.to_names(analysis.relation)]
     declared = [Dependency(attrs.to_names(fd.lhs), attrs.to_names(fd.rhs), span, "split") for fd in analysis.fds]
     return Table(split.original, span, columns, dependencies=declared)
-
-
-def caveats(analysis: SplitAnalysis) -> list[str]:
-    """Explanation lines on what the check could not follow: untraced and dropped columns."""
-    lines = [f"{u.piece}.{u.column} {u.reason}; it is not counted as carrying any column"
-             for u in analysis.untraced]
-    if analysis.dropped:
-        lines.append(f"no piece carries {analysis.attrs.format(analysis.dropped)}: the check covers"
-                     f" the other columns of {analysis.split.original}")
-    return lines
-
-
-def listing(names: Iterable[str]) -> str:
-    """Names as a sentence lists them: ``a``, ``a and b``, ``a, b and c``."""
-    items = list(names)
-    return " and ".join(filter(None, [", ".join(items[:-1]), items[-1] if items else ""]))
-
-
-def text_table(header: Sequence[str], rows: Iterable[Sequence[str]], indent: str = "  ") -> list[str]:
-    """A small table as aligned text lines: the header, then one line per row."""
-    grid = [list(header), *(list(row) for row in rows)]
-    widths = [max(len(line[i]) for line in grid) for i in range(len(header))]
-    return [indent + "  ".join(cell.ljust(width) for cell, width in zip(line, widths)).rstrip()
-            for line in grid]

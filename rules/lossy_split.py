@@ -15,9 +15,10 @@ from collections.abc import Iterator, Sequence
 from itertools import combinations
 
 from linter.dependencies import candidate_keys, closure
+from linter.explain_split import caveats, counterexample_lines, listing
 from linter.model import Finding
 from linter.rule import Context, Rule
-from linter.split_analysis import SplitAnalysis, caveats, listing, split_analysis, text_table
+from linter.split_analysis import SplitAnalysis, split_analysis
 from rules import read_page
 
 ID = "lossy-split"
@@ -27,7 +28,7 @@ def check(context: Context) -> Iterator[Finding]:
     """One finding per recorded split whose pieces do not join back losslessly, at the split."""
     for split in context.catalog.splits:
         analysis = split_analysis(split)
-        if analysis.decided and not analysis.chase.lossless:
+        if not analysis.undecided and not analysis.chase.lossless:
             pieces = listing(split.pieces[i].table for i in analysis.carrying)
             yield Finding(
                 ID,
@@ -61,7 +62,7 @@ def _explanation(analysis: SplitAnalysis) -> list[str]:
     """Which side the common columns would need to be a key of, the chase's example, the fix."""
     lines = [_pair_line(analysis, first, second) for first, second in combinations(analysis.carrying, 2)]
     lines += caveats(analysis)
-    lines += _example(analysis)
+    lines += counterexample_lines(analysis)
     lines.append(_fix(analysis))
     return lines
 
@@ -80,18 +81,6 @@ def _pair_line(analysis: SplitAnalysis, first: int, second: int) -> str:
             return f"{analysis.attrs.format(shared)} is a key of {names[i].table}"
         sides.append(f"of {names[i].table} (it does not determine {analysis.attrs.format(missing)})")
     return f"{analysis.attrs.format(shared)} would need to be a key {sides[0]} or {sides[1]}"
-
-
-def _example(analysis: SplitAnalysis) -> list[str]:
-    """The chase's counterexample: original rows that satisfy F, and the row their join invents."""
-    chase = analysis.chase
-    header = analysis.attrs.to_names(analysis.relation)
-    count = "two rows" if len(chase.rows) == 2 else f"{len(chase.rows)} rows"
-    lines = [f"for example, these {count} of {analysis.split.original} satisfy its dependencies:"]
-    lines += text_table(header, chase.rows)
-    lines.append("yet joining their projections also gives this row, which is not one of them:")
-    lines += text_table(header, [chase.spurious] if chase.spurious else [])
-    return lines
 
 
 def _fix(analysis: SplitAnalysis) -> str:

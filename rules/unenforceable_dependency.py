@@ -19,7 +19,8 @@ from linter.dependencies import FD
 from linter.dependencies.fd import members
 from linter.model import Finding
 from linter.rule import Context, Rule
-from linter.split_analysis import SplitAnalysis, caveats, carried_table, listing, split_analysis
+from linter.explain_split import caveats, listing
+from linter.split_analysis import SplitAnalysis, carried_table, split_analysis
 from rules import read_page
 
 ID = "unenforceable-dependency"
@@ -29,7 +30,7 @@ def check(context: Context) -> Iterator[Finding]:
     """One finding per left side of the cover dependencies a recorded split does not preserve."""
     for split in context.catalog.splits:
         analysis = split_analysis(split)
-        if not analysis.decided:
+        if analysis.undecided:
             continue
         for fd in _merged(analysis.lost):
             names = analysis.attrs

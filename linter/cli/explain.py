@@ -13,6 +13,7 @@ from linter.cli.options import checked_dialect
 from linter.config import load_config
 from linter.config_check import TARGETS
 from linter.engine import Result, run
+from linter.explain_split import split_section
 from linter.reader.names import parse_table_name
 
 
@@ -47,8 +48,12 @@ def explain(
                           target=target and target.lower())
         read = existing(paths, "given on the command line") if paths else existing(config.paths, "from 'paths'")
         result = run(config, read)
+        splits = split_section(result.catalog, parse_table_name(table, config.dialect))
+        if splits and parse_table_name(table, config.dialect) not in result.analyses:
+            click.echo("\n".join(splits[1:]))  # a dropped original: its splits are what is left of it
+            return
         analysis = result.analyses[_analysis_of(result, table, config.dialect)]
         lines = explain_lines(analysis)
         if sql and analysis.report.form != "BCNF":
             lines += ["", "proposed SQL for the BCNF decomposition:", *ddl_sketch(analysis, analysis.bcnf)]
-        click.echo("\n".join(lines))
+        click.echo("\n".join(lines + splits))
