@@ -14,11 +14,13 @@ gone as fixed. Fingerprints never hold line numbers, so moving or reformatting S
 >>> comparison = compare(parse_baseline(text, "base.yaml"), [new])
 >>> [f.table for f in comparison.new], [e.table for e in comparison.fixed]
 (['depot'], ['parcel'])
+>>> notes(comparison, "base.yaml")[0]
+'db/001.sql: fixed since the baseline (parcel): no key [missing-key]'
 """
 from __future__ import annotations
 
 from collections import defaultdict, deque
-from collections.abc import Iterable
+from collections.abc import Collection, Iterable
 from dataclasses import dataclass
 from pathlib import Path
 
@@ -60,7 +62,7 @@ class Baseline:
 
 @dataclass(frozen=True)
 class Comparison:
-    """Current findings set against a baseline: new ones, matched ones, and entries now fixed."""
+    """Current findings against a baseline: new and matched findings; entries that stay, and fixed ones."""
 
     new: tuple[Finding, ...]
     unchanged: tuple[Finding, ...]
@@ -68,14 +70,27 @@ class Comparison:
     fixed: tuple[Entry, ...]
 
 
-def baseline_of(findings: Iterable[Finding]) -> Baseline:
-    """A baseline holding every finding, sorted so regenerating it gives a small diff."""
-    entries = [Entry(f.fingerprint, f.rule, f.table, f.span.path, f.message) for f in findings]
+def baseline_of(findings: Iterable[Finding], keep: Iterable[Entry] = ()) -> Baseline:
+    """A baseline of every finding plus the ``keep`` entries, sorted so regenerating gives small diffs."""
+    entries = [*keep, *(Entry(f.fingerprint, f.rule, f.table, f.span.path, f.message) for f in findings)]
     return Baseline(tuple(sorted(entries, key=lambda e: (e.path, e.rule, e.table or "", e.fingerprint))))
 
 
-def compare(baseline: Baseline, findings: Iterable[Finding]) -> Comparison:
-    """Match findings to entries by fingerprint, one entry per finding (the same print may recur)."""
+def outside(baseline: Baseline, scope: Collection[str]) -> tuple[Entry, ...]:
+    """The entries for files outside ``scope`` (files and folders): a partial run says nothing of them."""
+    return tuple(entry for entry in baseline.entries if not within(entry.path, scope))
+
+
+def within(path: str, scope: Collection[str]) -> bool:
+    """True when ``path`` is one of the ``scope`` paths or lies in one of them as a folder."""
+    return any(path == s or s in (".", "") or path.startswith(s.rstrip("/") + "/") for s in scope)
+
+
+def compare(baseline: Baseline, findings: Iterable[Finding], scope: Collection[str] = (".",)) -> Comparison:
+    """Match findings to entries by fingerprint, one entry per finding (the same print may recur).
+
+    Entries for files outside ``scope`` are kept as they are: neither matched nor fixed.
+    """
     waiting: dict[str, deque[Finding]] = defaultdict(deque)
     for finding in findings:
         waiting[finding.fingerprint].append(finding)
@@ -83,13 +98,41 @@ def compare(baseline: Baseline, findings: Iterable[Finding]) -> Comparison:
     kept: list[Entry] = []
     fixed: list[Entry] = []
     for entry in baseline.entries:
-        if waiting[entry.fingerprint]:
+        if not within(entry.path, scope):
+            kept.append(entry)
+        elif waiting[entry.fingerprint]:
             unchanged.append(waiting[entry.fingerprint].popleft())
             kept.append(entry)
         else:
             fixed.append(entry)
     new = [finding for queue in waiting.values() for finding in queue]
     return Comparison(tuple(new), tuple(unchanged), tuple(kept), tuple(fixed))
+
+
+def notes(comparison: Comparison, path: str) -> list[str]:
+    """Lines telling how many findings the baseline hid and which of its entries are fixed."""
+    lines = []
+    if comparison.unchanged:
+        count = len(comparison.unchanged)
+        lines.append(f"normguard: {count} {plural(count, 'finding')} recorded in {path} not shown")
+    for entry in comparison.fixed:
+        table = f" ({entry.table})" if entry.table else ""
+        lines.append(f"{entry.path}: fixed since the baseline{table}: {entry.message} [{entry.rule}]")
+    if comparison.fixed:
+        count = len(comparison.fixed)
+        option = "" if path == DEFAULT_PATH else f" --output {path}"
+        lines.append(
+            f"normguard: {count} baseline {plural(count, 'entry')} fixed;"
+            f" `normguard baseline --prune{option}` drops {'it' if count == 1 else 'them'}"
+        )
+    return lines
+
+
+def plural(count: int, word: str) -> str:
+    """``finding``/``findings``, ``entry``/``entries``: the noun for ``count`` of them."""
+    if count == 1:
+        return word
+    return word[:-1] + "ies" if word.endswith("y") else word + "s"
 
 
 def dump_baseline(baseline: Baseline) -> str:

@@ -11,7 +11,8 @@ from linter.audit.progress import file_progress, stderr_is_terminal
 from linter.cli.check import plan, settings, write_report
 from linter.cli.errors import Failure, reported
 from linter.cli.options import checked_dialect
-from linter.config import TARGETS, load_config
+from linter.config import load_config
+from linter.config_check import TARGETS
 from linter.engine import run
 
 

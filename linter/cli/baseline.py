@@ -1,13 +1,7 @@
-"""``normguard baseline [PATHS]...``: record today's findings so ``check --baseline`` shows only new ones.
-
-Also the two helpers ``check --baseline`` uses: reading the file before the run, and the report
-with the baseline applied after it.
-"""
+"""``normguard baseline [PATHS]...``: record today's findings so ``check --baseline`` shows only new ones."""
 from __future__ import annotations
 
-import dataclasses
 import os
-from collections.abc import Sequence
 
 import click
 
@@ -17,50 +11,18 @@ from linter.baseline import (
     DEFAULT_PATH,
     Baseline,
     BaselineError,
-    Comparison,
     baseline_of,
     compare,
     dump_baseline,
     load_baseline,
-    notes,
     outside,
+    plural,
 )
 from linter.cli.check import plan, settings
 from linter.cli.errors import Failure, reported
 from linter.cli.options import checked_dialect
 from linter.config import load_config
-from linter.engine import Result, run
-from linter.reporters import render
-from linter.reporters.sarif import render_sarif
-
-
-def read_baseline(path: str) -> Baseline:
-    """The baseline at ``path``; missing, unreadable, corrupt or foreign fails with exit status 2."""
-    try:
-        return load_baseline(path)
-    except BaselineError as error:
-        raise Failure(str(error)) from None
-
-
-def apply_baseline(result: Result, recorded: Baseline, scope: Sequence[str]) -> tuple[Result, Comparison]:
-    """The result with only the findings the baseline does not hold, and the full comparison."""
-    comparison = compare(recorded, result.findings, scope)
-    return dataclasses.replace(result, findings=list(comparison.new)), comparison
-
-
-def baseline_report(
-    fmt: str, result: Result, comparison: Comparison, path: str, *, color: bool, exit_code: int
-) -> str:
-    """The report of new findings; SARIF marks every result's baseline state, text lists fixed entries."""
-    if fmt == "sarif":
-        return render_sarif(result, exit_code=exit_code, baseline=comparison)
-    text = render(fmt, result, color=color, exit_code=exit_code)
-    lines = notes(comparison, path)
-    if fmt == "text":
-        return text + "".join(f"{line}\n" for line in lines)
-    for line in lines:
-        click.echo(line, err=True)
-    return text
+from linter.engine import run
 
 
 def _previous(output: str, prune: bool) -> Baseline | None:
@@ -103,13 +65,15 @@ def baseline(
                            f" {len(previous.entries)} entries is fixed", err=True)
                 return 0
             _write(output, Baseline(comparison.kept))
-            click.echo(f"normguard: pruned {len(comparison.fixed)} fixed entries from {output};"
-                       f" {len(comparison.kept)} remain", err=True)
+            fixed, kept = len(comparison.fixed), len(comparison.kept)
+            click.echo(f"normguard: dropped {fixed} fixed {plural(fixed, 'entry')} from {output};"
+                       f" {kept} {plural(kept, 'entry')} kept", err=True)
             return 0
         kept = outside(previous, scope) if previous is not None else ()
         _write(output, baseline_of(result.findings, kept))
         besides = f" (kept {len(kept)} entries for files not read this time)" if kept else ""
-        click.echo(f"normguard: recorded {len(result.findings)} findings in {output}{besides}", err=True)
+        count = len(result.findings)
+        click.echo(f"normguard: recorded {count} {plural(count, 'finding')} in {output}{besides}", err=True)
         return 0
 
 
