@@ -44,9 +44,25 @@ def alter_table(state: ReplayState, alter: exp.Alter) -> bool:
         if not alter.args.get("exists"):
             state.conflict(f"ALTER TABLE of {name}, which does not exist", name)
         return True
+    renamed = _column_rename_without_keyword(alter)
+    if renamed is not None:
+        _rename_column(state, table, *renamed)
+        return True
     for action in alter.args.get("actions") or []:
         _action(state, table, action)
     return True
+
+
+def _column_rename_without_keyword(alter: exp.Alter) -> tuple[exp.Expression, exp.Expression] | None:
+    """PostgreSQL's ``RENAME old TO new`` (COLUMN left out), which sqlglot reads as a table rename + TO."""
+    actions = alter.args.get("actions") or []
+    options = alter.args.get("options") or []
+    if len(actions) == 1 and isinstance(actions[0], exp.AlterRename) and len(options) == 1 \
+            and isinstance(options[0], exp.ToTableProperty):
+        old, new = actions[0].this, options[0].this
+        if isinstance(old, exp.Table) and isinstance(new, exp.Table) and not old.db and not new.db:
+            return old.this, new.this
+    return None
 
 
 def _action(state: ReplayState, table: Table, action: exp.Expression) -> None:
@@ -59,8 +75,8 @@ def _action(state: ReplayState, table: Table, action: exp.Expression) -> None:
         _alter_column(state, table, action)
     elif isinstance(action, exp.ModifyColumn):
         _modify_column(state, table, action)
-    elif isinstance(action, exp.RenameColumn):
-        _rename_column(state, table, action)
+    elif isinstance(action, exp.RenameColumn) and action.args.get("to") is not None:
+        _rename_column(state, table, action.this, action.args["to"])
     elif isinstance(action, exp.AlterRename):
         _rename_table(state, table, action)
     elif isinstance(action, exp.AddConstraint):
@@ -76,7 +92,7 @@ def _column(state: ReplayState, table: Table, identifier: exp.Expression, verb: 
     """The folded column an action names, or None (and a conflict) when the table lacks it."""
     node = identifier.this if isinstance(identifier, exp.Column) else identifier
     name = fold_column(node, state.dialect)
-    if table.column(name) is None:
+    if state.missing(table, [name]):
         state.conflict(f"{verb} column {name} of {table.name}, which has no such column", table.name)
         return None
     return name
@@ -177,11 +193,10 @@ def _modify_column(state: ReplayState, table: Table, action: exp.ModifyColumn) -
     state.event(table, "altered", f"redefined column {spec.name}{renamed}")
 
 
-def _rename_column(state: ReplayState, table: Table, action: exp.RenameColumn) -> None:
+def _rename_column(state: ReplayState, table: Table, source: exp.Expression, target: exp.Expression) -> None:
     """RENAME COLUMN old TO new."""
-    old = _column(state, table, action.this, "RENAME")
-    target = action.args.get("to")
-    if old is None or target is None:
+    old = _column(state, table, source, "RENAME")
+    if old is None:
         return
     new = fold_column(target.this if isinstance(target, exp.Column) else target, state.dialect)
     if table.column(new) is not None:

@@ -64,7 +64,7 @@ def _target(state: ReplayState, kind: str, name: str | None, span: Span) -> Tabl
 
 def _add_dependency(state: ReplayState, table: Table, dependency: Dependency) -> None:
     """Store a declared dependency after checking that its columns exist."""
-    missing = [c for c in dict.fromkeys(dependency.lhs + dependency.rhs) if table.column(c) is None]
+    missing = state.missing(table, dependency.lhs + dependency.rhs)
     if missing:
         _error(state, dependency.span,
                f"dependency on {table.name} names missing column(s) {', '.join(missing)}", table.name)

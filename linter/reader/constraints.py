@@ -140,7 +140,7 @@ def column_spec(coldef: exp.ColumnDef, dialect: str) -> ColumnSpec:
     nullable: bool | None = None
     specs: list[Spec] = []
     for constraint in coldef.constraints:
-        kind_node = constraint.kind
+        kind_node = constraint.args.get("kind")
         cname = _name(constraint.this, dialect)
         if isinstance(kind_node, exp.NotNullColumnConstraint):
             nullable = bool(kind_node.args.get("allow_null"))

@@ -61,6 +61,8 @@ def create_index(state: ReplayState, create: exp.Create) -> bool:
         return False
     name = table_name(target, state.dialect)
     table = state.table(name)
+    if table is None and name in state.views:
+        return False  # an index on a materialized view: no key of a table
     if table is None:
         state.conflict(f"unique index on table {name}, which does not exist", name)
         return True
@@ -69,7 +71,7 @@ def create_index(state: ReplayState, create: exp.Create) -> bool:
         return True
     items = list(params.args.get("columns") or [])
     columns = [column_name(item, state.dialect) for item in items]
-    missing = [c for c in columns if c is not None and table.column(c) is None]
+    missing = state.missing(table, columns)
     if missing:
         state.conflict(f"unique index on {name} names missing column(s) {', '.join(missing)}", name)
         return True
@@ -95,13 +97,17 @@ def _expression_columns(item: exp.Expression, table: Table, dialect: str) -> lis
 
 
 def drop(state: ReplayState, statement: exp.Drop) -> bool:
-    """DROP TABLE (several names, IF EXISTS) and DROP INDEX; other DROPs are skipped."""
+    """DROP TABLE (several names, IF EXISTS) and DROP INDEX; DROP VIEW and other DROPs are skipped."""
     kind = (statement.args.get("kind") or "").upper()
     targets = [t for t in statement.args.get("tables") or [] if isinstance(t, exp.Table)]
     if kind == "TABLE":
         for target in targets:
             drop_table(state, table_name(target, state.dialect), bool(statement.args.get("exists")))
         return True
+    if kind == "VIEW":
+        for target in targets:
+            state.views.pop(table_name(target, state.dialect), None)
+        return False
     if kind == "INDEX":
         on = statement.args.get("cluster")
         owner = table_name(on.this, state.dialect) if isinstance(on, exp.OnProperty) else None

@@ -41,7 +41,7 @@ class QueryLineage:
 
     sources: list[Table]
     columns: list[Projection] | None  # None when the output columns cannot be known (``*`` of a join)
-    origin: Table | None  # the one table of a single-table query
+    origin: Table | None  # the one catalog table of a single-table query
 
 
 def query_lineage(state: ReplayState, query: exp.Expression) -> QueryLineage:
@@ -49,16 +49,19 @@ def query_lineage(state: ReplayState, query: exp.Expression) -> QueryLineage:
     sources = _sources(state, query)
     origin = _single_source(state, query)
     if not isinstance(query, exp.Select):
-        return QueryLineage(sources, [(_output_name(state, p, i), None) for i, p in enumerate(query.selects)], None)
+        if any(_is_star(p) for p in query.selects):
+            return QueryLineage(sources, None, None)
+        return QueryLineage(sources, [(_output_name(state, p), None) for p in query.selects], None)
+    table = origin[0] if origin is not None and state.table(origin[0].name) is origin[0] else None
     columns: list[Projection] = []
-    for index, projection in enumerate(query.expressions):
+    for projection in query.expressions:
         if _is_star(projection):
             if origin is None:
                 return QueryLineage(sources, None, None)
-            columns += [(name, name) for name in origin[0].column_names]
+            columns += [(name, name if table else None) for name in origin[0].column_names]
         else:
-            columns.append((_output_name(state, projection, index), _traced(state, projection, origin)))
-    return QueryLineage(sources, columns, origin[0] if origin else None)
+            columns.append((_output_name(state, projection), _traced(state, projection, origin)))
+    return QueryLineage(sources, columns, table)
 
 
 def _sources(state: ReplayState, query: exp.Expression) -> list[Table]:
@@ -79,7 +82,7 @@ def _single_source(state: ReplayState, query: exp.Expression) -> tuple[Table, se
     node = source.this if isinstance(source, exp.From) else None
     if not isinstance(node, exp.Table):
         return None
-    table = state.table(table_name(node, state.dialect))
+    table = state.relation(table_name(node, state.dialect))
     if table is None:
         return None
     names = {"", node.name, table.name, table.name.rpartition(".")[2]}
@@ -93,14 +96,16 @@ def _is_star(projection: exp.Expression) -> bool:
     return isinstance(projection, exp.Star) or (isinstance(projection, exp.Column) and isinstance(projection.this, exp.Star))
 
 
-def _output_name(state: ReplayState, projection: exp.Expression, index: int) -> str:
-    """The column name a projection produces (folded), or a positional name for a bare expression."""
+def _output_name(state: ReplayState, projection: exp.Expression) -> str:
+    """The column name a projection produces, folded; unnamed ones as PostgreSQL names them."""
     node = projection.args.get("alias") if isinstance(projection, exp.Alias) else projection
     if isinstance(node, exp.Column):
         node = node.this
     if isinstance(node, exp.Identifier):
         return fold_column(node, state.dialect)
-    return projection.output_name or f"column{index + 1}"
+    if isinstance(node, exp.Anonymous):
+        return node.name.lower()
+    return node.sql_name().lower() if isinstance(node, exp.Func) else "?column?"
 
 
 def _traced(state: ReplayState, projection: exp.Expression, origin: tuple[Table, set[str]] | None) -> str | None:
@@ -109,8 +114,8 @@ def _traced(state: ReplayState, projection: exp.Expression, origin: tuple[Table,
     if origin is None or not isinstance(inner, exp.Column) or not isinstance(inner.this, exp.Identifier):
         return None
     table, names = origin
-    if inner.table not in names:
-        return None
+    if inner.table not in names or state.table(table.name) is not table:
+        return None  # another table, or a view: not a column of a catalog table
     name = fold_column(inner.this, state.dialect)
     return name if table.column(name) is not None else None
 
@@ -121,6 +126,18 @@ def _record(state: ReplayState, sources: list[Table], target: Table, lineage: di
         if source is not target:
             traced = lineage if len(sources) == 1 else {column: None for column in lineage}
             state.feeds.append(Feed(source, target, traced, state.span, state.path, state.order))
+
+
+def create_view(state: ReplayState, create: exp.Create) -> bool:
+    """Remember a view's column names (None: unknown) for ``SELECT * FROM v``; the view itself is skipped."""
+    target, query = create.this, create.expression
+    listed = [fold_column(i, state.dialect) for i in target.expressions] if isinstance(target, exp.Schema) else []
+    target = target.this if isinstance(target, exp.Schema) else target
+    if isinstance(target, exp.Table) and isinstance(query, exp.Query):
+        name, span = table_name(target, state.dialect), state.span_of(target)
+        names = listed or [output for output, _ in query_lineage(state, query).columns or []]
+        state.views[name] = Table(name, span, [Column(n, "", True, span) for n in names]) if names else None
+    return False
 
 
 def insert_select(state: ReplayState, insert: exp.Insert) -> bool:
@@ -175,6 +192,8 @@ def create_from_query(state: ReplayState, create: exp.Create | exp.Select) -> bo
         origin = found.origin.column(source) if found.origin is not None and source else None
         table.columns.append(Column(column, origin.type if origin else "", True, table.span))
     state.catalog.tables[name] = table
+    if found.columns is None and not listed:
+        state.open_tables.append(table)
     state.event(table, "created", f"created from a query with columns {', '.join(table.column_names)}")
     _record(state, found.sources, table, dict(zip(names, sources)))
     return True

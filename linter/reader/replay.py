@@ -26,8 +26,9 @@ from linter.model import Catalog, Dependency
 from linter.reader.alter import alter_table
 from linter.reader.attach import attach_comments, attach_config
 from linter.reader.ddl import create_index, create_table, drop
-from linter.reader.lineage import create_from_query, insert_select
+from linter.reader.lineage import create_from_query, create_view, insert_select
 from linter.reader.names import table_name
+from linter.reader.recover import recover
 from linter.reader.splits import finish_declared, finish_file
 from linter.reader.state import ReplayState
 
@@ -73,7 +74,8 @@ def _replay_statement(state: ReplayState, statement: Any) -> None:
     try:
         understood = _apply(state, statement)
     except Exception as error:  # a bug or an odd tree must not stop the replay of other statements
-        state.report("unsupported-statement", "warning", f"could not analyse: {type(error).__name__}: {error}")
+        state.report("unsupported-statement", "warning",
+                     f"could not analyse: internal error while replaying this statement ({type(error).__name__}: {error})")
         understood = False
     if not understood:
         state.catalog.statements_skipped += 1
@@ -105,6 +107,9 @@ _HANDLERS: tuple[tuple[type[exp.Expression], Callable[[ReplayState, Any], bool]]
 
 def _apply(state: ReplayState, statement: Any) -> bool:
     """Dispatch a statement to its handler; False when it is skipped."""
+    if statement.opaque or statement.expression is None:
+        if recover(state, statement.text):
+            return True
     if statement.opaque:
         first_line = statement.text.strip().splitlines()[0][:80] if statement.text.strip() else ""
         state.report("unsupported-statement", "warning",
@@ -117,6 +122,8 @@ def _apply(state: ReplayState, statement: Any) -> bool:
         if kind == "TABLE":
             return create_from_query(state, expression) if isinstance(expression.expression, exp.Query) \
                 else create_table(state, expression)
+        if kind == "VIEW":
+            return create_view(state, expression)
         return kind.endswith("INDEX") and create_index(state, expression)
     if isinstance(expression, exp.Select) and expression.args.get("into") is not None:
         return create_from_query(state, expression)

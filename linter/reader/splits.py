@@ -8,6 +8,9 @@ dropping or shrinking the original is never a split, so no single file yields a 
 pieces are the fed tables still alive at the end of the file, plus the shrunk original itself with
 its remaining columns; the original is described as it was just before its first drop or column
 drop in the file. The split's span is that DROP / ALTER, or the last data move when it came later.
+A table counts as a piece only if it took at least one column of the original unchanged: a table
+filled from a join, or with counts and other expressions only, holds none of the original's columns
+and says nothing about how the original was decomposed.
 
 A *declared* split gathers every table carrying ``normguard: split-from T`` over the whole replay,
 with T as it was when the last of them was created (its last state if it was dropped already);
@@ -49,6 +52,7 @@ def _fed_piece(target: Table, feeds: list[Feed]) -> SplitPiece:
 
 def _split_of(state: ReplayState, first: Shrink, last: Shrink, feeds: list[Feed]) -> Split | None:
     """The data split of one original, or None when none of the tables it fed is left."""
+    feeds = [feed for feed in feeds if any(source is not None for source in feed.lineage.values())]
     targets: list[Table] = []
     for feed in feeds:
         if _alive(state, feed.target) and all(feed.target is not t for t in targets):

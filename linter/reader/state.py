@@ -11,12 +11,13 @@ it, so a finding or an event always gets the span of the statement being replaye
 """
 from __future__ import annotations
 
+from collections.abc import Iterable
 from dataclasses import dataclass, field, replace
 from typing import Any
 
 from sqlglot import exp
 
-from linter.model import Catalog, Event, Finding, Span, Table
+from linter.model import Catalog, Column, Event, Finding, Span, Table
 
 
 @dataclass
@@ -63,6 +64,8 @@ class ReplayState:
     feeds: list[Feed] = field(default_factory=list)
     shrinks: list[Shrink] = field(default_factory=list)
     declarations: dict[str, list[Declaration]] = field(default_factory=dict)
+    views: dict[str, Table | None] = field(default_factory=dict)  # views by name, None: columns unknown
+    open_tables: list[Table] = field(default_factory=list)  # columns came from an untraceable SELECT *
 
     def begin_file(self, path: str, dialect: str) -> None:
         """Start replaying the statements of one file."""
@@ -102,6 +105,18 @@ class ReplayState:
     def table(self, name: str) -> Table | None:
         """The live table called ``name``, or None."""
         return self.catalog.tables.get(name)
+
+    def missing(self, table: Table, columns: Iterable[str | None]) -> list[str]:
+        """The named columns ``table`` lacks; a table of unknown columns (``open_tables``) learns them."""
+        absent = [c for c in dict.fromkeys(columns) if c is not None and table.column(c) is None]
+        if absent and any(table is t for t in self.open_tables):
+            table.columns += [Column(c, "", True, self.span) for c in absent]
+            return []
+        return absent
+
+    def relation(self, name: str) -> Table | None:
+        """The live table or the view called ``name``, or None."""
+        return self.table(name) or self.views.get(name)
 
     def last_state(self, name: str) -> Table | None:
         """The live table called ``name``, else the last state of a dropped one."""

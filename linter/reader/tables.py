@@ -46,14 +46,9 @@ def add_constraints(state: ReplayState, table: Table, specs: tuple[Spec, ...] | 
     return added
 
 
-def _missing(table: Table, columns: tuple[str | None, ...] | tuple[str, ...]) -> list[str]:
-    """The named columns ``table`` does not have."""
-    return [c for c in columns if c is not None and table.column(c) is None]
-
-
 def _add_key(state: ReplayState, table: Table, spec: KeySpec) -> bool:
     """Record a PRIMARY KEY / UNIQUE constraint (a primary key makes its columns NOT NULL)."""
-    missing = _missing(table, spec.columns)
+    missing = state.missing(table, spec.columns)
     if missing:
         state.conflict(f"{spec.source} of {table.name} names missing column(s) {', '.join(missing)}", table.name)
         return False
@@ -71,7 +66,7 @@ def _add_key(state: ReplayState, table: Table, spec: KeySpec) -> bool:
 
 def _add_foreign_key(state: ReplayState, table: Table, spec: ForeignKeySpec) -> bool:
     """Record a FOREIGN KEY / REFERENCES over existing columns."""
-    missing = _missing(table, spec.columns)
+    missing = state.missing(table, spec.columns)
     if missing:
         state.conflict(f"foreign key of {table.name} names missing column(s) {', '.join(missing)}", table.name)
         return False

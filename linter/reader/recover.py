@@ -1,0 +1,103 @@
+"""Two statements sqlglot cannot turn into a tree, read from their tokens instead.
+
+``ALTER TABLE t RENAME CONSTRAINT a TO b`` comes back as opaque text and ``DROP INDEX a, b`` fails
+to parse; both matter to the catalog (a later DROP CONSTRAINT finds the new name, a dropped unique
+index is no longer a key), and both have a grammar small enough to follow token by token.
+
+>>> from linter.reader.statements import get_dialect
+>>> tokens = get_dialect("postgres").tokenize("DROP INDEX CONCURRENTLY IF EXISTS billing.a, b CASCADE")
+>>> [name.sql() for name in _drop_index_names(tokens)]
+['billing.a', 'b']
+"""
+from __future__ import annotations
+
+from dataclasses import replace
+
+from sqlglot import exp
+from sqlglot.errors import TokenError
+from sqlglot.tokens import Token, TokenType
+
+from linter.reader.ddl import drop_index
+from linter.reader.names import fold_column, table_name
+from linter.reader.state import ReplayState
+from linter.reader.statements import get_dialect
+
+_NAME_TYPES = frozenset({TokenType.VAR, TokenType.IDENTIFIER})
+_DROP_INDEX_MODIFIERS = frozenset({"CONCURRENTLY", "IF", "EXISTS"})
+
+
+def recover(state: ReplayState, text: str) -> bool:
+    """Replay RENAME CONSTRAINT or a several-index DROP INDEX from tokens; False for anything else."""
+    try:
+        tokens = get_dialect(state.dialect).tokenize(text)
+    except TokenError:
+        return False
+    words = [token.text.upper() for token in tokens]
+    if words[:2] == ["DROP", "INDEX"]:
+        names = _drop_index_names(tokens)
+        for name in names:
+            drop_index(state, table_name(name, state.dialect), None)
+        return bool(names)
+    if words[:2] == ["ALTER", "TABLE"]:
+        return _rename_constraint(state, tokens)
+    return False
+
+
+def _name(tokens: list[Token], start: int) -> tuple[exp.Table | None, int]:
+    """A possibly qualified name starting at ``start``, and the index after it."""
+    parts: list[exp.Identifier] = []
+    i = start
+    while i < len(tokens) and tokens[i].token_type in _NAME_TYPES:
+        parts.append(exp.Identifier(this=tokens[i].text, quoted=tokens[i].token_type == TokenType.IDENTIFIER))
+        if i + 1 < len(tokens) and tokens[i + 1].token_type == TokenType.DOT:
+            i += 2
+        else:
+            i += 1
+            break
+    if not parts:
+        return None, start
+    names = ["catalog", "db", "this"][-len(parts):] if len(parts) <= 3 else []
+    return (exp.Table(**dict(zip(names, parts))) if names else None), i
+
+
+def _drop_index_names(tokens: list[Token]) -> list[exp.Table]:
+    """The index names of ``DROP INDEX [CONCURRENTLY] [IF EXISTS] a [, b ...] [CASCADE | RESTRICT]``."""
+    i = 2
+    while i < len(tokens) and tokens[i].text.upper() in _DROP_INDEX_MODIFIERS:
+        i += 1
+    names: list[exp.Table] = []
+    while i < len(tokens):
+        name, i = _name(tokens, i)
+        if name is None:
+            return []
+        names.append(name)
+        if i < len(tokens) and tokens[i].token_type == TokenType.COMMA:
+            i += 1
+            continue
+        break
+    rest = [token.text.upper() for token in tokens[i:]]
+    return names if rest in ([], ["CASCADE"], ["RESTRICT"]) else []
+
+
+def _rename_constraint(state: ReplayState, tokens: list[Token]) -> bool:
+    """``ALTER TABLE [IF EXISTS] [ONLY] t RENAME CONSTRAINT a TO b``: the rule keeps its columns."""
+    i = 2
+    while i < len(tokens) and tokens[i].text.upper() in ("IF", "EXISTS", "ONLY"):
+        i += 1
+    target, i = _name(tokens, i)
+    words = [token.text.upper() for token in tokens[i:]]
+    if target is None or len(words) != 5 or words[:2] != ["RENAME", "CONSTRAINT"] or words[3] != "TO":
+        return False
+    old_token, new_token = tokens[i + 2], tokens[i + 4]
+    if old_token.token_type not in _NAME_TYPES or new_token.token_type not in _NAME_TYPES:
+        return False
+    old, new = (fold_column(exp.Identifier(this=t.text, quoted=t.token_type == TokenType.IDENTIFIER), state.dialect)
+                for t in (old_token, new_token))
+    table = state.table(table_name(target, state.dialect))
+    if table is None:
+        state.conflict(f"RENAME CONSTRAINT on {table_name(target, state.dialect)}, which does not exist")
+        return True
+    table.uniques = [replace(u, name=new) if u.name == old else u for u in table.uniques]
+    table.foreign_keys = [replace(f, name=new) if f.name == old else f for f in table.foreign_keys]
+    state.event(table, "altered", f"renamed constraint {old} to {new}")
+    return True

@@ -1,0 +1,48 @@
+"""Every rule module is found, and every rule has a valid severity, a one-line summary and a full page."""
+from __future__ import annotations
+
+import re
+from pathlib import Path
+
+import pytest
+
+from linter.model import SEVERITIES
+from rules import all_rules, get_rule
+
+RULES_DIR = Path(__file__).resolve().parents[2] / "rules"
+MINE = {
+    "missing-key": "warning", "partial-dependency": "warning", "transitive-dependency": "warning",
+    "bcnf-violation": "warning", "nullable-unique": "warning", "redundant-unique": "note",
+    "annotation-error": "error", "syntax-error": "error", "unsupported-statement": "warning",
+    "schema-conflict": "warning", "file-error": "warning",
+}
+
+
+def test_every_module_defining_a_rule_is_discovered_in_id_order() -> None:
+    defining = {path.stem for path in RULES_DIR.glob("*.py") if re.search(r"^RULE = ", path.read_text(), re.M)}
+    ids = [rule.id for rule in all_rules()]
+    assert ids == sorted(ids) and len(ids) == len(set(ids)) == len(defining)
+    assert {rule_id.replace("-", "_") for rule_id in ids} == defining
+
+
+def test_rules_keep_their_default_severity() -> None:
+    assert {rule_id: get_rule(rule_id).severity for rule_id in MINE} == MINE
+    assert get_rule("no-such-rule") is None
+
+
+@pytest.mark.parametrize("rule_id", sorted(MINE))
+def test_summary_and_page(rule_id: str) -> None:
+    rule = get_rule(rule_id)
+    assert rule.severity in SEVERITIES
+    assert "\n" not in rule.summary and rule.summary.endswith(".")
+    assert rule.page.startswith(f"# {rule.id}\n")
+    assert "**What it flags.**" in rule.page and "**How to fix it.**" in rule.page
+    assert "```sql" in rule.page
+
+
+@pytest.mark.parametrize("rule_id", sorted(MINE))
+def test_pages_that_propose_a_migration_warn_about_it(rule_id: str) -> None:
+    page = get_rule(rule_id).page
+    fix = page[page.index("**How to fix it.**"):]
+    if "```sql" in fix:
+        assert "back up" in page and "never applies a migration" in page
