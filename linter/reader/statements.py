@@ -113,7 +113,8 @@ class Statement:
 
     ``kind`` is ``"ast"`` (a real expression tree), ``"opaque"`` (an ``exp.Command`` for DDL the
     linter needs: CREATE TABLE, CREATE UNIQUE INDEX, ALTER TABLE ADD/DROP/RENAME), ``"error"``
-    (could not be parsed: ``expression`` is None), ``"command"`` (another opaque statement:
+    (could not be parsed: ``expression`` is None, ``problem`` says why), ``"unparsed"`` (the same
+    for a statement that cannot change tables: function, trigger, view, grant ...), ``"command"`` (another opaque statement:
     functions, triggers, grants ...) or ``"fragment"`` (a bare expression left by a body split).
     """
 
@@ -124,6 +125,7 @@ class Statement:
     comments: tuple[Comment, ...]
     opaque: bool
     kind: str = "ast"
+    problem: Finding | None = field(default=None, repr=False)
     end: int = field(default=0, repr=False)
     lines: LineIndex | None = field(default=None, repr=False, compare=False)
 
@@ -149,7 +151,7 @@ class Script:
     """What ``split_file`` read from one file.
 
     ``statements`` are the ones to replay (kinds ast, opaque and error, in file order);
-    ``skipped`` the other Commands and fragments (kept for their comments); ``findings`` the
+    ``skipped`` the others (command, fragment, unparsed; kept for their comments); ``findings`` the
     file, tokenizer and parser problems met.
     """
 
@@ -213,6 +215,20 @@ _STATEMENT_OBJECTS = frozenset(
     {"TABLE", "INDEX", "VIEW", "SEQUENCE", "TYPE", "SCHEMA", "TRIGGER", "FUNCTION", "PROCEDURE",
      "PROC", "DOMAIN", "EXTENSION", "DATABASE"}
 )
+# Statements that cannot change a table, a column or a key: when sqlglot cannot parse one, the
+# reader notes it and goes on (a MySQL procedure or a DB2 trigger is no error of the schema).
+_NO_TABLE_OBJECTS = frozenset(
+    {"FUNCTION", "PROCEDURE", "PROC", "TRIGGER", "VIEW", "MATERIALIZED", "TYPE", "EVENT", "PACKAGE",
+     "DOMAIN", "RULE", "EXTENSION", "SEQUENCE", "AGGREGATE", "OPERATOR", "POLICY", "STATISTICS",
+     "PUBLICATION", "SUBSCRIPTION", "ROLE", "USER", "LANGUAGE", "SERVER", "COLLATION", "CAST",
+     "SYNONYM", "LIBRARY", "DATABASE"}
+)
+_NO_TABLE_STATEMENTS = frozenset(
+    {"GRANT", "REVOKE", "DENY", "DEALLOCATE", "PREPARE", "EXECUTE", "EXEC", "CALL", "SET", "DECLARE",
+     "COMMENT", "ANALYZE", "VACUUM", "REINDEX", "LOCK", "PRINT", "USE", "SHOW", "SELECT", "DO",
+     "CLUSTER", "REFRESH", "NOTIFY", "LISTEN", "DISCARD", "CHECKPOINT", "EXPLAIN", "BEGIN", "END",
+     "COMMIT", "ROLLBACK", "SAVEPOINT", "RELEASE", "START", "PRAGMA", "FLUSH", "OPTIMIZE"}
+)
 _NOT_BEFORE_STATEMENT = frozenset({"GRANT", "REVOKE", "DENY", ",", "TO", "ON"})
 _QUOTED_TOKENS = frozenset(
     {TokenType.STRING, TokenType.IDENTIFIER, TokenType.NATIONAL_STRING, TokenType.HEREDOC_STRING,
@@ -253,6 +269,7 @@ def _tokenize(reader: _Reader, start: int, end: int) -> list[Token]:
             # The statement the error is in is incomplete: keep only what ends with a ';'.
             last = max((i for i, t in enumerate(tokens) if t.token_type == TokenType.SEMICOLON), default=-1)
             del tokens[last + 1 :]
+    _place_command_text(tokenizer, chunk, tokens)
     if start:
         line0, column0 = reader.lines.position(start)
         for token in tokens:
@@ -263,6 +280,24 @@ def _tokenize(reader: _Reader, start: int, end: int) -> list[Token]:
             token.end += start
     _collect_comments(reader, tokens, start, scan_end)
     return tokens
+
+
+def _place_command_text(tokenizer, chunk: str, tokens: list[Token]) -> None:
+    """Give correct offsets to the text sqlglot reads whole after a command word (RENAME, EXECUTE ...).
+
+    The tokenizer turns everything from such a word at a statement start up to the next ``;`` into
+    one STRING token, but records it with the offsets of the last token it scanned.
+    """
+    commands, prefixes = tokenizer.COMMANDS, tokenizer.COMMAND_PREFIX_TOKENS
+    for i in [i for i, token in enumerate(tokens) if token.token_type in commands]:
+        if i + 1 < len(tokens) and tokens[i + 1].token_type == TokenType.STRING and (
+            i == 0 or tokens[i - 1].token_type in prefixes
+        ):
+            command, token = tokens[i], tokens[i + 1]
+            begin = chunk.find(token.text, command.end + 1)
+            if begin >= 0:
+                token.start, token.end = begin, begin + len(token.text) - 1
+                token.line = command.line + chunk.count("\n", command.end, token.end)
 
 
 def _token_error(error: TokenError, chunk: str, comment_syntax) -> tuple[int, str | None]:
@@ -280,7 +315,7 @@ def _token_error(error: TokenError, chunk: str, comment_syntax) -> tuple[int, st
             return where, f"unterminated quoted text: no closing {found.group(2)} after this point"
         return where, "invalid characters in a numeric string literal"
     if isinstance(cause, IndexError):
-        opened = max((chunk.rfind(opener) for opener, closer in comment_syntax if closer), default=-1)
+        opened = max((chunk.rfind(opener) for opener, closer in comment_syntax.items() if closer), default=-1)
         if opened >= 0:
             return opened, None
     if error.start:  # the context snippet runs 50 characters either side of the stop
@@ -293,59 +328,56 @@ def _token_error(error: TokenError, chunk: str, comment_syntax) -> tuple[int, st
 
 
 def _collect_comments(reader: _Reader, tokens: Sequence[Token], start: int, stop: int) -> None:
-    """Find the comments in the gaps between tokens (the tokenizer keeps them without positions)."""
-    previous = start
-    for token in tokens:
-        if token.start > previous:
-            _scan_gap(reader, previous, token.start)
-        previous = token.end + 1
-    if stop > previous:
-        _scan_gap(reader, previous, stop)
+    """Find the comments between tokens, with positions (the tokenizer keeps them without).
+
+    The text between two tokens holds only white space and comments, so every comment opener met
+    outside a token and outside a comment already read starts a comment.
+    """
+    syntax, nested, openers = _comment_syntax(reader.dialect.tokenizer_class)
+    text = reader.text
+    starts = [token.start for token in tokens]
+    done = start
+    for match in openers.finditer(text, start, stop):
+        i = match.start()
+        if i < done:
+            continue
+        k = bisect.bisect_right(starts, i) - 1
+        if k >= 0 and tokens[k].end >= i:
+            continue  # inside a string, a quoted name or a command's text
+        gap_end = starts[k + 1] if k + 1 < len(starts) else stop
+        done = _read_comment(reader, i, match.group(), syntax[match.group()], gap_end, nested)
 
 
 @lru_cache(maxsize=None)
-def _comment_syntax(tokenizer_class: type) -> tuple[tuple[tuple[str, str | None], ...], bool]:
-    """The comment delimiters of a dialect, longest opener first, and whether ``/* */`` nests."""
-    pairs = [(c, None) if isinstance(c, str) else (c[0], c[1]) for c in tokenizer_class.COMMENTS]
-    pairs.append(("{#", "#}"))  # sqlglot reads Jinja comments in every dialect
-    pairs.sort(key=lambda pair: -len(pair[0]))
-    return tuple(pairs), bool(tokenizer_class.NESTED_COMMENTS)
+def _comment_syntax(tokenizer_class: type) -> tuple[dict[str, str | None], bool, re.Pattern[str]]:
+    """A dialect's comment openers with their closers, whether ``/* */`` nests, an opener regex."""
+    pairs = {c: None for c in tokenizer_class.COMMENTS if isinstance(c, str)}
+    pairs.update((c[0], c[1]) for c in tokenizer_class.COMMENTS if not isinstance(c, str))
+    pairs["{#"] = "#}"  # sqlglot reads Jinja comments in every dialect
+    pattern = "|".join(re.escape(opener) for opener in sorted(pairs, key=len, reverse=True))
+    return pairs, bool(tokenizer_class.NESTED_COMMENTS), re.compile(pattern)
 
 
-def _scan_gap(reader: _Reader, start: int, end: int) -> None:
-    """Record the comments in ``text[start:end]``, which holds only white space and comments."""
+def _read_comment(reader: _Reader, i: int, opener: str, closer: str | None, end: int, nested: bool) -> int:
+    """Record the comment opened at ``i`` (it ends by ``end``); return the offset after it."""
     text = reader.text
-    syntax, nested = _comment_syntax(reader.dialect.tokenizer_class)
-    i = start
-    while i < end:
-        if text[i].isspace():
-            i += 1
-            continue
-        for opener, closer in syntax:
-            if text.startswith(opener, i):
-                break
-        else:
-            i += 1
-            continue
-        body = i + len(opener)
-        if closer is None:
-            stop = text.find("\n", body, end)
-            stop = end if stop < 0 else stop
-            inner_end = stop - 1 if stop > body and text[stop - 1] == "\r" else stop
-            after = stop
-        else:
-            after, inner_end = _block_end(text, body, end, opener, closer, nested)
-            if inner_end < 0:
-                reader.finding(
-                    "syntax-error", "error", i, i + len(opener),
-                    f"comment opened with {opener} is never closed: the rest of the file is ignored",
-                )
-                inner_end = after
-        shown = inner_end if closer is None else after  # a line comment's span stops before \r
-        reader.comments.append(
-            Comment(text[body:inner_end], reader.lines.span(i, shown), start=i, end=after)
-        )
-        i = after
+    body = i + len(opener)
+    if closer is None:
+        after = text.find("\n", body, end)
+        after = end if after < 0 else after
+        inner_end = after - 1 if after > body and text[after - 1] == "\r" else after
+        shown = inner_end  # a line comment's span stops before its line break
+    else:
+        after, inner_end = _block_end(text, body, end, opener, closer, nested)
+        if inner_end < 0:
+            reader.finding(
+                "syntax-error", "error", i, body,
+                f"comment opened with {opener} is never closed: the rest of the file is ignored",
+            )
+            inner_end = after
+        shown = after
+    reader.comments.append(Comment(text[body:inner_end], reader.lines.span(i, shown), start=i, end=after))
+    return after
 
 
 def _block_end(text: str, body: int, end: int, opener: str, closer: str, nested: bool) -> tuple[int, int]:
@@ -371,63 +403,82 @@ def _block_end(text: str, body: int, end: int, opener: str, closer: str, nested:
 # ---------------------------------------------------------------------------- client separators
 
 
+# sqlcmd and SSMS cut batches at a line holding only GO (an optional count, a -- comment) without
+# looking at SQL at all, and sqlglot's T-SQL tokenizer reads GO as a command swallowing the text up
+# to the next ';', so these lines are found by line, as the client tool finds them.
+_GO_LINE = re.compile(r"^[ \t]*GO(?:[ \t]+\d+)?[ \t]*(?:--[^\r\n]*)?\r?$", re.IGNORECASE | re.MULTILINE)
+
+
+# SQL*Plus commands: a line of their own at a statement start, no ';' needed (SQL*Plus manual).
+_SQLPLUS_COMMANDS = frozenset(
+    {"CONNECT", "CONN", "DISCONNECT", "SPOOL", "PROMPT", "EXIT", "QUIT", "WHENEVER", "DEFINE",
+     "UNDEFINE", "REM", "REMARK", "PAUSE", "ACCEPT", "SET", "SHOW", "COLUMN", "TTITLE", "BTITLE",
+     "BREAK", "COMPUTE", "CLEAR", "VARIABLE", "HOST", "STORE", "TIMING"}
+)
+# A quick check before looking for psql meta-commands among the tokens.
+_MAYBE_META_LINE = re.compile(r"^[ \t]*\\", re.MULTILINE)
+
+
 def _units(reader: _Reader) -> list[_Unit]:
     """Tokenize the file and cut it where the dialect's client tool would send a batch."""
-    tokens = _tokenize(reader, 0, len(reader.text))
     dialect = reader.dialect
     if isinstance(dialect, TSQL):
-        return _cut_at_lines(tokens, _is_go)
+        return _go_batches(reader)
+    tokens = _tokenize(reader, 0, len(reader.text))
     if isinstance(dialect, Oracle):
-        return _cut_at_lines(tokens, _is_slash)
-    if isinstance(dialect, Postgres):
+        return _cut_at_lines(tokens, _sqlplus_line)
+    if isinstance(dialect, Postgres) and _MAYBE_META_LINE.search(reader.text):
         return _cut_at_lines(tokens, _psql_meta)
     if isinstance(dialect, MySQL):
         return _mysql_units(reader, tokens)
     return [_Unit(tokens)]
 
 
-def _alone_on_line(tokens: Sequence[Token], i: int, width: int) -> int:
-    """``width`` when tokens[i : i + width] fill their line, else 0 (a token's line is its last)."""
-    first, last = tokens[i], tokens[i + width - 1]
-    if i > 0 and tokens[i - 1].line == first.line:
-        return 0
-    if i + width < len(tokens) and tokens[i + width].line == last.line:
-        return 0
-    return width
-
-
-def _is_slash(tokens: Sequence[Token], i: int) -> int:
-    """1 when tokens[i] is a SQL*Plus ``/`` line (send the buffer), else 0."""
-    return _alone_on_line(tokens, i, 1) if tokens[i].token_type == TokenType.SLASH else 0
-
-
-def _is_go(tokens: Sequence[Token], i: int) -> int:
-    """How many tokens a sqlcmd ``GO`` / ``GO <count>`` line takes at ``i`` (0: not one)."""
-    if _word(tokens[i]) != "GO":
-        return 0
-    if i + 1 < len(tokens) and tokens[i + 1].token_type == TokenType.NUMBER:
-        width = _alone_on_line(tokens, i, 2)
-        if width:
-            return width
-    return _alone_on_line(tokens, i, 1)
-
-
-def _psql_meta(tokens: Sequence[Token], i: int) -> int:
-    """How many tokens a psql meta-command line (``\\c db``, ``\\set x 1``) takes at ``i``."""
-    token = tokens[i]
-    if token.token_type != TokenType.BACKSLASH or (i > 0 and tokens[i - 1].line == token.line):
+def _rest_of_line(tokens: Sequence[Token], i: int) -> int:
+    """How many tokens from ``i`` end on the line of tokens[i]; 0 unless tokens[i] starts its line."""
+    line = tokens[i].line
+    if i > 0 and tokens[i - 1].line == line:
         return 0
     width = 1
-    while i + width < len(tokens) and tokens[i + width].line == token.line:
+    while i + width < len(tokens) and tokens[i + width].line == line:
         width += 1
     return width
 
 
+def _sqlplus_line(tokens: Sequence[Token], i: int, at_start: bool) -> int:
+    """Tokens of a SQL*Plus line at ``i``: ``/`` alone (run the buffer) or a client command."""
+    token = tokens[i]
+    if token.token_type == TokenType.SLASH:
+        return 1 if _rest_of_line(tokens, i) == 1 else 0
+    word = _word(token)
+    if not at_start or not (word in _SQLPLUS_COMMANDS or word.startswith("@")):
+        return 0
+    if word == "SET" and _word(_at(tokens, i + 1)) in ("TRANSACTION", "ROLE", "CONSTRAINT", "CONSTRAINTS"):
+        return 0  # SQL, not SQL*Plus
+    return _rest_of_line(tokens, i)
+
+
+def _go_batches(reader: _Reader) -> list[_Unit]:
+    """The T-SQL batches between ``GO`` lines, each tokenized alone."""
+    units, start = [], 0
+    for line in _GO_LINE.finditer(reader.text):
+        units.append(_Unit(_tokenize(reader, start, line.start())))
+        start = line.end()
+    units.append(_Unit(_tokenize(reader, start, len(reader.text))))
+    return [unit for unit in units if unit.tokens]
+
+
+def _psql_meta(tokens: Sequence[Token], i: int, at_start: bool) -> int:
+    """Tokens of a psql meta-command line (``\\c db``, ``\\set x 1``) at ``i``."""
+    return _rest_of_line(tokens, i) if tokens[i].token_type == TokenType.BACKSLASH else 0
+
+
 def _cut_at_lines(tokens: list[Token], separator) -> list[_Unit]:
-    """Cut the tokens at separator lines found by ``separator(tokens, i) -> width``."""
+    """Cut the tokens at client lines found by ``separator(tokens, i, at_statement_start) -> width``."""
     units, current, i = [], [], 0
     while i < len(tokens):
-        width = separator(tokens, i)
+        at_start = not current or current[-1].token_type == TokenType.SEMICOLON
+        width = separator(tokens, i, at_start)
         if width:
             units.append(_Unit(current))
             current = []
@@ -490,6 +541,57 @@ def _delimiter_cuts(reader: _Reader, tokens: Sequence[Token], delimiter: str, st
 # ---------------------------------------------------------------------------- statements
 
 
+_NESTING = frozenset({TokenType.SEMICOLON, TokenType.L_PAREN, TokenType.R_PAREN, TokenType.BEGIN, TokenType.END, TokenType.CASE})
+
+
+def _nesting(tokens: Sequence[Token]) -> tuple[list[tuple[int, int]], int]:
+    """(parenthesis depth, block depth) before each token, and the block depth after the last.
+
+    ``BEGIN`` opens a block unless it starts a transaction (``BEGIN;``, ``BEGIN TRANSACTION`` ...);
+    inside a block ``CASE`` opens one too; ``END`` closes one, but ``END IF``/``END LOOP`` ... close
+    what was never counted. Words inside parentheses do not count (a column named ``begin``).
+    """
+    levels: list[tuple[int, int]] = []
+    parens = depth = 0
+    skip = False
+    for i, token in enumerate(tokens):
+        levels.append((parens, depth))
+        kind = token.token_type
+        if skip or kind not in _NESTING:
+            skip = False
+            continue
+        if kind == TokenType.SEMICOLON:
+            if depth == 0:
+                parens = 0
+        elif kind == TokenType.L_PAREN:
+            parens += 1
+        elif kind == TokenType.R_PAREN:
+            parens = max(parens - 1, 0)
+        elif not parens:
+            following = _word(tokens[i + 1]) if i + 1 < len(tokens) else ";"
+            if kind == TokenType.BEGIN and following not in _NON_BLOCK_AFTER_BEGIN:
+                depth += 1
+            elif kind == TokenType.CASE and depth:
+                depth += 1
+            elif kind == TokenType.END and depth:
+                skip = following in _END_OF_UNCOUNTED or following == "CASE"
+                if following not in _END_OF_UNCOUNTED:
+                    depth -= 1
+    return levels, depth
+
+
+def _cut_at_semicolons(tokens: list[Token]) -> Iterator[tuple[list[Token], Token | None]]:
+    """Cut at every ``;`` token, blocks or not."""
+    start = 0
+    for k, token in enumerate(tokens):
+        if token.token_type == TokenType.SEMICOLON:
+            if k > start:
+                yield tokens[start:k], token
+            start = k + 1
+    if start < len(tokens):
+        yield tokens[start:], None
+
+
 def _statement_slices(unit: _Unit, dialect: Dialect) -> Iterator[tuple[list[Token], Token | None]]:
     """Cut a unit at top-level ``;`` tokens, keeping ``BEGIN ... END`` bodies whole.
 
@@ -501,52 +603,22 @@ def _statement_slices(unit: _Unit, dialect: Dialect) -> Iterator[tuple[list[Toke
         yield tokens, None
         return
     oracle = isinstance(dialect, Oracle)
-    begin, depth, parens, i = 0, 0, 0, 0
-    while i < len(tokens):
-        token = tokens[i]
-        kind = token.token_type
-        word = _word(token)
+    if not oracle and not any(token.token_type == TokenType.BEGIN for token in tokens):
+        yield from _cut_at_semicolons(tokens)
+        return
+    levels, open_blocks = _nesting(tokens)
+    begin = 0
+    for i, token in enumerate(tokens):
         if i == begin and oracle and _is_plsql_head(tokens, i):
             yield tokens[i:], None
             return
-        if kind == TokenType.SEMICOLON and depth == 0:
+        if token.token_type == TokenType.SEMICOLON and levels[i][1] == 0:
             if i > begin:
                 yield tokens[begin:i], token
-            begin, parens = i + 1, 0
-        elif kind == TokenType.L_PAREN:
-            parens += 1
-        elif kind == TokenType.R_PAREN:
-            parens = max(parens - 1, 0)
-        elif parens:
-            pass
-        elif word == "BEGIN":
-            following = _word(tokens[i + 1]) if i + 1 < len(tokens) else ";"
-            if following not in _NON_BLOCK_AFTER_BEGIN:
-                depth += 1
-        elif word == "CASE" and depth:
-            depth += 1
-        elif word == "END" and depth:
-            following = _word(tokens[i + 1]) if i + 1 < len(tokens) else ""
-            if following in _END_OF_UNCOUNTED:
-                i += 1
-            else:
-                depth -= 1
-                if following == "CASE":
-                    i += 1
-        i += 1
+            begin = i + 1
     if begin < len(tokens):
         rest = tokens[begin:]
-        if depth:  # an unbalanced block: fall back to every ';'
-            start = 0
-            for k, token in enumerate(rest):
-                if token.token_type == TokenType.SEMICOLON:
-                    if k > start:
-                        yield rest[start:k], token
-                    start = k + 1
-            if start < len(rest):
-                yield rest[start:], None
-        else:
-            yield rest, None
+        yield from _cut_at_semicolons(rest) if open_blocks else [(rest, None)]
 
 
 def _is_plsql_head(tokens: Sequence[Token], i: int) -> bool:
@@ -567,21 +639,13 @@ def _is_plsql_head(tokens: Sequence[Token], i: int) -> bool:
 
 def _restart_points(tokens: Sequence[Token]) -> list[int]:
     """Indexes where a new DDL statement starts inside these tokens (a missing ``;``)."""
-    points, parens, depth = [], 0, 0
+    points = []
     head = _word(tokens[0])
-    for i, token in enumerate(tokens):
-        kind = token.token_type
-        if kind == TokenType.L_PAREN:
-            parens += 1
-        elif kind == TokenType.R_PAREN:
-            parens = max(parens - 1, 0)
-        word = _word(token)
-        if word == "BEGIN":
-            depth += 1
-        elif word == "END" and depth:
-            depth -= 1
-        if i == 0 or parens or depth or _word(tokens[i - 1]) in _NOT_BEFORE_STATEMENT:
+    levels, _ = _nesting(tokens)
+    for i in range(1, len(tokens)):
+        if levels[i] != (0, 0) or _word(tokens[i - 1]) in _NOT_BEFORE_STATEMENT:
             continue
+        word = _word(tokens[i])
         if word == "CREATE" or (word in ("ALTER", "DROP") and head != "ALTER"):
             if _names_object(tokens, i):
                 points.append(i)
@@ -595,19 +659,30 @@ def _at(tokens: Sequence[Token], i: int) -> Token | None:
     return tokens[i] if i < len(tokens) else None
 
 
-def _names_object(tokens: Sequence[Token], i: int) -> bool:
-    """True when the keyword at ``i`` is followed (after modifiers) by an object kind."""
+def _object_word(tokens: Sequence[Token], i: int) -> str:
+    """The object kind after the CREATE/ALTER/DROP at ``i``, past modifiers ('' when none)."""
     for token in tokens[i + 1 : i + 6]:
         word = _word(token)
-        if word in _STATEMENT_OBJECTS:
-            return True
         if word not in _CREATE_MODIFIERS:
-            return False
-    return False
+            return word
+    return ""
+
+
+def _names_object(tokens: Sequence[Token], i: int) -> bool:
+    """True when the keyword at ``i`` is followed (after modifiers) by an object kind."""
+    return _object_word(tokens, i) in _STATEMENT_OBJECTS
+
+
+def _cannot_change_tables(tokens: Sequence[Token]) -> bool:
+    """True for functions, triggers, views, grants, queries ...: nothing that shapes a table."""
+    head = _word(tokens[0])
+    if head in ("CREATE", "ALTER", "DROP"):
+        return _object_word(tokens, 0) in _NO_TABLE_OBJECTS
+    return head in _NO_TABLE_STATEMENTS
 
 
 def _opaque_ddl(tokens: Sequence[Token]) -> bool:
-    """True for CREATE TABLE, CREATE UNIQUE INDEX and ALTER TABLE ... ADD/DROP/RENAME text."""
+    """True for CREATE TABLE, CREATE UNIQUE INDEX, ALTER TABLE ... ADD/DROP/RENAME, RENAME TABLE."""
     words = [_word(t) for t in tokens[:8]]
     if not words:
         return False
@@ -617,16 +692,20 @@ def _opaque_ddl(tokens: Sequence[Token]) -> bool:
             return True
         rest = [w for w in rest if w not in ("CLUSTERED", "NONCLUSTERED")]
         return rest[:2] == ["UNIQUE", "INDEX"]
+    if words[0] == "RENAME" and words[1:2] and words[1].split()[:1] == ["TABLE"]:  # MySQL
+        return True  # (sqlglot reads the text after RENAME as one string token)
     if words[:2] == ["ALTER", "TABLE"]:
-        parens = 0
-        for token in tokens[2:]:
-            if token.token_type == TokenType.L_PAREN:
-                parens += 1
-            elif token.token_type == TokenType.R_PAREN:
-                parens -= 1
-            elif parens == 0 and _word(token) in ("ADD", "DROP", "RENAME"):
+        levels, _ = _nesting(tokens)
+        for i in range(2, len(tokens)):
+            if levels[i][0] == 0 and _word(tokens[i]) in ("ADD", "DROP", "RENAME") and not _adds_default(tokens, i):
                 return True
     return False
+
+
+def _adds_default(tokens: Sequence[Token], i: int) -> bool:
+    """True at ``ADD [CONSTRAINT name] DEFAULT``: a T-SQL default, which no key depends on."""
+    words = [_word(t) for t in tokens[i : i + 4]]
+    return words[1:2] == ["DEFAULT"] or (words[1:2] == ["CONSTRAINT"] and words[3:4] == ["DEFAULT"])
 
 
 def _is_fragment(expression: exp.Expression) -> bool:
@@ -667,36 +746,55 @@ class _Parser:
         self.parser = reader.dialect.parser(error_level=ErrorLevel.IMMEDIATE)
         self.tsql = isinstance(reader.dialect, TSQL)
 
-    def statements(self, tokens: list[Token], terminator: Token | None) -> list[Statement]:
-        """The statement(s) in ``tokens``: one, or several when a ``;`` was missing between them."""
-        if self.tsql:  # T-SQL needs no ';' between statements
+    def statements(self, tokens: list[Token], terminator: Token | None, whole: bool) -> list[Statement]:
+        """The statement(s) in ``tokens``: one, or several when a ``;`` was missing between them.
+
+        ``whole`` tokens were sent as one statement by the client (mysql DELIMITER): never re-cut.
+        """
+        if self.tsql and not whole:  # T-SQL needs no ';' between statements
             points = _restart_points(tokens)
             if points:
                 return self._pieces(tokens, points, terminator, warn=False)
         statements = self._parse_all(tokens, terminator)
-        statement = statements[0]
-        if len(statements) == 1 and statement.kind in ("error", "command", "opaque"):
+        if statements[0].kind == "error" and _word(tokens[0]) == "DROP":
+            statements = self._each_dropped(tokens, terminator) or statements
+        if not whole and len(statements) == 1 and statements[0].kind in ("error", "command", "opaque"):
             points = _restart_points(tokens)
             if points:
                 return self._pieces(tokens, points, terminator, warn=True)
         return statements
 
+    def _each_dropped(self, tokens: list[Token], terminator: Token | None) -> list[Statement]:
+        """``DROP INDEX a, b CASCADE`` as one DROP per object, which sqlglot reads ([] if not)."""
+        levels, _ = _nesting(tokens)
+        commas = [i for i, token in enumerate(tokens) if token.token_type == TokenType.COMMA and levels[i][0] == 0]
+        if not commas:
+            return []
+        head_end = 2
+        while head_end < commas[0] and _word(tokens[head_end]) in ("IF", "EXISTS", "CONCURRENTLY"):
+            head_end += 1
+        head, tail = tokens[:head_end], []
+        while len(tokens) - len(tail) - 1 > commas[-1] + 1 and _word(tokens[-len(tail) - 1]) in ("CASCADE", "RESTRICT"):
+            tail.insert(0, tokens[-len(tail) - 1])
+        bounds = [head_end - 1, *commas, len(tokens) - len(tail)]
+        start, stop = tokens[0].start, tokens[-1].end + 1
+        pieces = []
+        for a, b in zip(bounds, bounds[1:]):
+            statement = self._parse(head + tokens[a + 1 : b] + tail, terminator)
+            if statement.kind != "ast":
+                return []
+            # Each piece keeps the text and span of the statement as written.
+            statement.text, statement.offset = self.reader.text[start:stop], start
+            statement.span = self.reader.lines.span(start, stop)
+            pieces.append(statement)
+        return pieces
+
     def _parse_all(self, tokens: list[Token], terminator: Token | None) -> list[Statement]:
         """Parse tokens meant as one statement; cut them at every ``;`` if they hold several."""
         statement = self._parse(tokens, terminator)
-        return self._at_every_semicolon(tokens, terminator) if statement.kind == "merged" else [statement]
-
-    def _at_every_semicolon(self, tokens: list[Token], terminator: Token | None) -> list[Statement]:
-        """Parse the pieces between every ``;`` of ``tokens`` as statements of their own."""
-        result, start = [], 0
-        for k, token in enumerate(tokens):
-            if token.token_type == TokenType.SEMICOLON:
-                if k > start:
-                    result.append(self._parse(tokens[start:k], token))
-                start = k + 1
-        if start < len(tokens):
-            result.append(self._parse(tokens[start:], terminator))
-        return result
+        if statement.kind != "merged":
+            return [statement]
+        return [self._parse(piece, end) for piece, end in _cut_at_semicolons(tokens)]
 
     def _pieces(self, tokens: list[Token], points: list[int], terminator: Token | None, warn: bool) -> list[Statement]:
         """Parse each piece between restart points; warn about the missing ``;``."""
@@ -714,7 +812,7 @@ class _Parser:
         return result
 
     def _parse(self, tokens: list[Token], terminator: Token | None) -> Statement:
-        """Parse tokens that hold one statement."""
+        """Parse tokens that hold one statement; a failure is kept as the statement's ``problem``."""
         reader = self.reader
         start, stop = tokens[0].start, tokens[-1].end + 1
         end = terminator.end + 1 if terminator is not None else stop
@@ -728,16 +826,18 @@ class _Parser:
                 if e is not None and not isinstance(e, exp.Semicolon)
             ]
         except ParseError as error:
-            self._report(statement, tokens, error)
+            statement.problem = self._problem(statement, tokens, error)
+            if _cannot_change_tables(tokens):
+                statement.kind = "unparsed"
+                statement.problem.severity = "note"
+                statement.problem.message += "; skipped, as it cannot change a table or key"
             return statement
         except RecursionError:
-            reader.finding("syntax-error", "error", start, stop, f"{_describe(tokens)} statement is nested too deeply to read")
+            statement.problem = self._failure(statement, f"{_describe(tokens)} statement is nested too deeply to read")
             return statement
         except Exception as error:  # sqlglot itself failed: report, never crash
-            reader.finding(
-                "syntax-error", "error", start, stop,
-                f"sqlglot could not read this {_describe(tokens)} statement ({error!s:.80})",
-            )
+            message = f"sqlglot could not read this {_describe(tokens)} statement ({error!s:.80})"
+            statement.problem = self._failure(statement, message)
             return statement
         if not parsed:
             statement.kind = "command"
@@ -755,8 +855,12 @@ class _Parser:
             statement.kind = "ast"
         return statement
 
-    def _report(self, statement: Statement, tokens: Sequence[Token], error: ParseError) -> None:
-        """A ``syntax-error`` at the token sqlglot stopped at."""
+    def _failure(self, statement: Statement, message: str) -> Finding:
+        """A ``syntax-error`` over the whole statement."""
+        return Finding("syntax-error", "error", statement.span, message)
+
+    def _problem(self, statement: Statement, tokens: Sequence[Token], error: ParseError) -> Finding:
+        """A ``syntax-error`` at the token sqlglot stopped at, with its message."""
         lines = self.reader.lines
         description, highlight = _clean_message(error)
         first = error.errors[0] if error.errors else {}
@@ -770,10 +874,8 @@ class _Parser:
         where = ""
         if lines.position(start)[0] != statement.span.line:
             where = f" (statement starts on line {statement.span.line})"
-        self.reader.finding(
-            "syntax-error", "error", start, stop,
-            f"cannot parse {_describe(tokens)} statement: {description}{near}{where}",
-        )
+        message = f"cannot parse {_describe(tokens)} statement: {description}{near}{where}"
+        return Finding("syntax-error", "error", lines.span(start, stop), message)
 
 
 @contextmanager
@@ -833,9 +935,11 @@ def split_file(source: Source, dialect: str | None) -> Script:
         parser = _Parser(reader)
         for unit in _units(reader):
             for tokens, terminator in _statement_slices(unit, sqlglot_dialect):
-                everything.extend(parser.statements(tokens, terminator))
+                everything.extend(parser.statements(tokens, terminator, unit.whole))
     script.trailing_comments = _attach_comments(everything, reader.comments, lines)
     for statement in everything:
-        (script.skipped if statement.kind in ("command", "fragment") else script.statements).append(statement)
-    script.findings.extend(sorted(reader.findings, key=lambda f: (f.span.line, f.span.column)))
+        replayed = statement.kind in ("ast", "opaque", "error")
+        (script.statements if replayed else script.skipped).append(statement)
+    problems = [s.problem for s in everything if s.problem is not None]
+    script.findings.extend(sorted(reader.findings + problems, key=lambda f: (f.span.line, f.span.column)))
     return script
