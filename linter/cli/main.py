@@ -66,7 +66,7 @@ def _say(message: str) -> None:
     click.echo(f"normguard: {message}", err=True)
 
 
-@click.group(cls=_Group, context_settings={"help_option_names": ["-h", "--help"]})
+@click.group("normguard", cls=_Group, context_settings={"help_option_names": ["-h", "--help"]})
 @click.version_option(__version__, "--version", prog_name="normguard", message="%(prog)s %(version)s")
 def main() -> None:
     """Keep relational schemas normalized: check SQL migrations for keys and normal forms."""

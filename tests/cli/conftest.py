@@ -1,0 +1,62 @@
+"""Fixtures for the command-line tests: a private copy of the bundled example, a runner, the script."""
+from __future__ import annotations
+
+import os
+import shutil
+import sys
+from collections.abc import Callable, Iterator
+from pathlib import Path
+
+import pytest
+from click.testing import CliRunner
+
+ROOT = Path(__file__).resolve().parents[2]
+EXAMPLE = ROOT / "examples" / "courier"
+SHARED = ROOT.parent / "shared"
+
+
+@pytest.fixture
+def example(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Iterator[Path]:
+    """A copy of the courier example as the working directory, so tests may change it freely."""
+    copy = tmp_path / "courier"
+    shutil.copytree(EXAMPLE, copy)
+    monkeypatch.chdir(copy)
+    monkeypatch.delenv("NO_COLOR", raising=False)
+    yield copy
+
+
+@pytest.fixture
+def runner() -> CliRunner:
+    """click's in-process runner."""
+    return CliRunner()
+
+
+@pytest.fixture
+def script() -> str:
+    """The installed ``normguard`` console script (beside this interpreter, else on PATH)."""
+    beside = Path(sys.executable).with_name("normguard")
+    found = str(beside) if beside.exists() else shutil.which("normguard")
+    if found is None:
+        pytest.skip("the normguard console script is not installed (pip install -e '.[test]')")
+    return found
+
+
+@pytest.fixture
+def shared() -> Path:
+    """../shared beside the checkout; tests that need it skip with a message when it is absent."""
+    if not (SHARED / "standards").is_dir():
+        pytest.skip(f"../shared/standards is not there (looked in {SHARED.name}/ beside the checkout)")
+    return SHARED
+
+
+def _without_no_color(**extra: str) -> dict[str, str]:
+    """The environment without NO_COLOR, plus ``extra``."""
+    env = {k: v for k, v in os.environ.items() if k != "NO_COLOR"}
+    env.update(extra)
+    return env
+
+
+@pytest.fixture
+def clean_env() -> Callable[..., dict[str, str]]:
+    """A function giving the environment without NO_COLOR, plus keyword overrides."""
+    return _without_no_color
