@@ -81,6 +81,9 @@ def test_tsql_clustered_and_nonclustered_constraints() -> None:
         "ux_tickets_seat": (("seatlabel", "portid"), "unique index", False, False, True),
     }
     assert [(f.name, f.ref_table, f.ref_columns) for f in tickets.foreign_keys] == [("fk_tickets_ports", "ports", ("portid",))]
+    assert [(d.lhs, d.rhs, d.span.line) for d in tickets.dependencies] == [(("seatlabel", "portid"), ("deck",), 35)]
+    assert catalog.tables["ticketarchive"].column_names == ("ticketno", "homeport")
+    assert catalog.findings == []
 
 
 def test_tsql_unique_nonclustered_column_lists() -> None:

@@ -84,6 +84,18 @@ def test_insert_after_the_last_shrink_gives_the_split_its_span() -> None:
     assert catalog.splits[0].span.line == 2
 
 
+def test_mysql_column_moved_to_its_own_table() -> None:
+    catalog = read_fixture("mysql", "ferries")
+    split = catalog.splits[0]
+    assert (split.how, split.original, split.span.line) == ("data", "ports", 4)
+    assert [(d.lhs, d.rhs, d.span.line) for d in split.original_dependencies] == [(("name",), ("country",), 1)]
+    assert _pieces(split) == {
+        "countries": (("code",), {"code": "country"}),
+        "ports": (("port_id", "code", "name"), {"port_id": "port_id", "code": "code", "name": "name"}),
+    }
+    assert catalog.tables["ports"].dependencies == []
+
+
 def test_sqlite_rebuild_records_the_renamed_copy_as_a_piece() -> None:
     split = read_fixture("sqlite", "seedbank").splits[0]
     assert (split.how, split.original) == ("data", "accessions")
