@@ -1,10 +1,10 @@
 """Everything the rules ask about one table: its dependencies, keys, normal form and decompositions.
 
 >>> from linter.model import Column, Dependency, Span, Table, Unique
->>> at = Span("db/001.sql", 1, 1, 1, 9)
->>> table = Table("couriers", at, [Column(n, "TEXT", False, at) for n in ("courier_id", "depot", "city")],
-...               [Unique(("courier_id",), "primary key", at)],
-...               dependencies=[Dependency(("depot",), ("city",), Span("db/001.sql", 5, 8, 5, 21), "annotation")])
+>>> at, note = Span("db/001.sql", 1, 1, 1, 9), Span("db/001.sql", 5, 8, 5, 21)
+>>> columns = [Column(name, "TEXT", False, at) for name in ("courier_id", "depot", "city")]
+>>> table = Table("couriers", at, columns, [Unique(("courier_id",), "primary key", at)],
+...               dependencies=[Dependency(("depot",), ("city",), note, "annotation")])
 >>> analysis = analyse(table, "bcnf")
 >>> analysis.report.form, analysis.format_keys(analysis.keys.keys)
 ('2NF', 'courier_id')
@@ -120,10 +120,8 @@ class TableAnalysis:
     def piece_names(self, decomposition: Decomposition) -> list[str]:
         """Readable names: the piece holding a key of the table keeps its name, others ``<table>_by_<key>``."""
         names: list[str] = []
-        keeper = next(
-            (i for i, p in enumerate(decomposition.pieces) if any(not k & ~p.attrs for k in self.keys.keys)),
-            None,
-        )
+        holds_key = [any(not k & ~p.attrs for k in self.keys.keys) for p in decomposition.pieces]
+        keeper = holds_key.index(True) if True in holds_key else None
         for i, piece in enumerate(decomposition.pieces):
             base = self.table.name
             if i != keeper:

@@ -3,7 +3,8 @@
 >>> import os, tempfile
 >>> folder = tempfile.mkdtemp()
 >>> with open(os.path.join(folder, ".normguard.yaml"), "w") as out:
-...     _ = out.write("paths: [db]\\ntarget: 3nf\\ntables:\\n  couriers:\\n    dependencies: [depot -> city]\\n")
+...     _ = out.write("paths: [db]\\ntarget: 3nf\\n"
+...                   "tables:\\n  couriers:\\n    dependencies: [depot -> city]\\n")
 >>> config = load_config(cwd=folder)
 >>> config.paths, config.target, config.fail_on
 (('db',), '3nf', 'warning')
@@ -79,7 +80,7 @@ class Config:
     source: str | None = None
 
     def dialect_for(self, path: str) -> str:
-        """The dialect of the file at ``path``: the deepest ``dialects`` folder holding it, or ``dialect``."""
+        """The dialect of the file at ``path``: that of the deepest ``dialects`` folder holding it."""
         matches = [f for f in self.dialects if f in (".", path) or path.startswith(f.rstrip("/") + "/")]
         return self.dialects[max(matches, key=len)] if matches else self.dialect
 

@@ -1,4 +1,4 @@
-"""``bcnf-violation``: a dependency's left side is not a key though 3NF holds, so its table is not in BCNF."""
+"""``bcnf-violation``: a non-key left side while 3NF holds, so the table is not in BCNF."""
 from __future__ import annotations
 
 from linter.rule import Rule
@@ -7,4 +7,10 @@ from rules.violations import violation_check
 
 ID = "bcnf-violation"
 SEVERITY = "warning"
-RULE = Rule(ID, SEVERITY, "A dependency's left side is not a key, though 3NF holds, so the table is not in BCNF.", read_page(ID), violation_check(ID, "bcnf", SEVERITY))
+RULE = Rule(
+    ID,
+    SEVERITY,
+    "A dependency's left side is not a key, though 3NF holds, so the table is not in BCNF.",
+    read_page(ID),
+    violation_check(ID, "bcnf", SEVERITY),
+)

@@ -2,8 +2,9 @@
 
 >>> from linter.model import Catalog, Column, Span, Table, Unique
 >>> at = Span("db/002.sql", 3, 5, 3, 20)
->>> table = Table("riders", at, [Column("rider_id", "INT", False, at), Column("badge_no", "TEXT", True, at)],
-...               [Unique(("rider_id",), "primary key", at), Unique(("badge_no",), "unique constraint", at)])
+>>> columns = [Column("rider_id", "INT", False, at), Column("badge_no", "TEXT", True, at)]
+>>> keys = [Unique(("rider_id",), "primary key", at), Unique(("badge_no",), "unique constraint", at)]
+>>> table = Table("riders", at, columns, keys)
 >>> [f.message for f in check(Context(Catalog({"riders": table}), {}))]
 ['unique constraint (badge_no) of riders is not a key: badge_no allows NULL, and NULLs never collide']
 """
@@ -57,9 +58,10 @@ def _fixes(nullable: list[str], dialect: str) -> list[str]:
     if dialect == "tsql":
         # SQL Server's UNIQUE admits a single NULL (from memory), yet a key column should be NOT NULL
         lines.append("SQL Server admits one NULL here, but normguard counts only NOT NULL keys")
-    lines.append("if many rows may lack a value, say the rule is partial: a unique index WHERE ... IS NOT NULL")
+    lines.append("if many rows may lack a value, say so: a unique index WHERE ... IS NOT NULL")
     return lines
 
 
-RULE = Rule(ID, "warning", "A UNIQUE constraint or index covers a nullable column, so it is not a key.",
-            read_page(ID), check)
+RULE = Rule(
+    ID, "warning", "A UNIQUE constraint or index covers a nullable column, so it is not a key.", read_page(ID), check
+)

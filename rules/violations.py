@@ -2,10 +2,10 @@
 
 >>> from linter.analysis import analyse
 >>> from linter.model import Catalog, Column, Dependency, Span, Table, Unique
->>> at = Span("db/001.sql", 1, 14, 1, 22)
->>> table = Table("couriers", at, [Column(n, "TEXT", False, at) for n in ("courier_id", "depot", "city")],
-...               [Unique(("courier_id",), "primary key", at)],
-...               dependencies=[Dependency(("depot",), ("city",), Span("db/001.sql", 5, 8, 5, 21), "annotation")])
+>>> at, note = Span("db/001.sql", 1, 14, 1, 22), Span("db/001.sql", 5, 8, 5, 21)
+>>> columns = [Column(name, "TEXT", False, at) for name in ("courier_id", "depot", "city")]
+>>> table = Table("couriers", at, columns, [Unique(("courier_id",), "primary key", at)],
+...               dependencies=[Dependency(("depot",), ("city",), note, "annotation")])
 >>> context = Context(Catalog({"couriers": table}), {"couriers": analyse(table, "bcnf")})
 >>> [finding] = violation_check("transitive-dependency", "transitive", "warning")(context)
 >>> finding.span.line, finding.dependency
@@ -109,7 +109,7 @@ def _explanation(kind: str, analysis: TableAnalysis, fd: FD) -> list[str]:
 
 
 def _split_lines(analysis: TableAnalysis, fd: FD, said: tuple[FD, ...]) -> list[str]:
-    """The split on X -> X+ that removes the violation, checked with the chase; ``said``: lost, told later."""
+    """The split on X -> X+ that removes the violation, checked by the chase (``said``: told elsewhere)."""
     names, r = analysis.attributes, analysis.attributes.full
     split = analysis.split_on(fd.lhs)
     determined = closure(fd.lhs, analysis.cover) & r & ~fd.lhs
@@ -120,7 +120,7 @@ def _split_lines(analysis: TableAnalysis, fd: FD, said: tuple[FD, ...]) -> list[
         if chase.lossless
         else "the chase finds this split lossy: do not apply it"
     )
-    lines = [f"to remove it, split {analysis.table.name} on {names.format(fd.lhs)} -> {names.format(determined)}:"]
+    lines = [f"to remove it, split {analysis.table.name} on {names.format_fd(FD(fd.lhs, determined))}:"]
     lines.extend(f"  {line}" for line in analysis.describe_decomposition(split))
     lines.append(verdict)
     for lost in (lost for lost in split.lost if lost not in said):
