@@ -4,7 +4,8 @@ from __future__ import annotations
 import pytest
 from rule_helpers import of_rule, places
 
-from linter.config import TableSettings
+from linter.config import Config, TableSettings
+from linter.engine import run
 
 NF_RULES = ("partial-dependency", "transitive-dependency", "bcnf-violation")
 
@@ -104,3 +105,20 @@ def test_configured_severity_keeps_notes_below_target(check) -> None:
                    severity={"transitive-dependency": "error"})
     severities = {(f.table, f.severity) for f in of_rule(result, "transitive-dependency")}
     assert severities == {("couriers", "error"), ("parcels", "note")}
+
+
+def test_derived_dependency_is_reported_where_its_right_side_is_stated(tmp_path, monkeypatch) -> None:
+    monkeypatch.chdir(tmp_path)
+    (tmp_path / "shifts.sql").write_text(
+        "CREATE TABLE shifts (\n"
+        "    shift_id int PRIMARY KEY, rider text NOT NULL, depot text NOT NULL, city text NOT NULL\n"
+        "    -- normguard: fd rider -> depot\n"
+        "    -- normguard: fd rider, depot -> city\n"
+        ");\n",
+        encoding="utf-8",
+    )
+    found = [f for f in run(Config(paths=("shifts.sql",))).findings if f.rule == "transitive-dependency"]
+    assert [(f.span.line, f.dependency) for f in found] == [(3, (("rider",), ("depot",))), (4, (("rider",), ("city",)))]
+    assert found[1].explanation[0] == (
+        "follows from rider -> depot (annotation, shifts.sql:3:8); rider, depot -> city (annotation, shifts.sql:4:8)"
+    )
