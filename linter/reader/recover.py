@@ -1,13 +1,13 @@
-"""Two statements sqlglot cannot turn into a tree, read from their tokens instead.
+"""A statement sqlglot keeps as opaque text, read from its tokens: ALTER TABLE ... RENAME CONSTRAINT.
 
-``ALTER TABLE t RENAME CONSTRAINT a TO b`` comes back as opaque text and ``DROP INDEX a, b`` fails
-to parse; both matter to the catalog (a later DROP CONSTRAINT finds the new name, a dropped unique
-index is no longer a key), and both have a grammar small enough to follow token by token.
+The catalog needs it (a later DROP CONSTRAINT looks for the new name) and its grammar is small
+enough to follow token by token: ``ALTER TABLE [IF EXISTS] [ONLY] t RENAME CONSTRAINT a TO b``.
 
 >>> from linter.reader.statements import get_dialect
->>> tokens = get_dialect("postgres").tokenize("DROP INDEX CONCURRENTLY IF EXISTS billing.a, b CASCADE")
->>> [name.sql() for name in _drop_index_names(tokens)]
-['billing.a', 'b']
+>>> tokens = get_dialect("postgres").tokenize('"Billing".invoices RENAME')
+>>> name, after = _name(tokens, 0)
+>>> name.sql(dialect="postgres"), tokens[after].text
+('"Billing".invoices', 'RENAME')
 """
 from __future__ import annotations
 
@@ -17,30 +17,21 @@ from sqlglot import exp
 from sqlglot.errors import TokenError
 from sqlglot.tokens import Token, TokenType
 
-from linter.reader.ddl import drop_index
 from linter.reader.names import fold_column, table_name
 from linter.reader.state import ReplayState
 from linter.reader.statements import get_dialect
 
 _NAME_TYPES = frozenset({TokenType.VAR, TokenType.IDENTIFIER})
-_DROP_INDEX_MODIFIERS = frozenset({"CONCURRENTLY", "IF", "EXISTS"})
 
 
 def recover(state: ReplayState, text: str) -> bool:
-    """Replay RENAME CONSTRAINT or a several-index DROP INDEX from tokens; False for anything else."""
+    """Replay an ALTER TABLE ... RENAME CONSTRAINT from its tokens; False for any other statement."""
     try:
         tokens = get_dialect(state.dialect).tokenize(text)
     except TokenError:
         return False
-    words = [token.text.upper() for token in tokens]
-    if words[:2] == ["DROP", "INDEX"]:
-        names = _drop_index_names(tokens)
-        for name in names:
-            drop_index(state, table_name(name, state.dialect), None)
-        return bool(names)
-    if words[:2] == ["ALTER", "TABLE"]:
-        return _rename_constraint(state, tokens)
-    return False
+    words = [token.text.upper() for token in tokens[:2]]
+    return words == ["ALTER", "TABLE"] and _rename_constraint(state, tokens)
 
 
 def _name(tokens: list[Token], start: int) -> tuple[exp.Table | None, int]:
@@ -60,30 +51,12 @@ def _name(tokens: list[Token], start: int) -> tuple[exp.Table | None, int]:
     return (exp.Table(**dict(zip(names, parts))) if names else None), i
 
 
-def _drop_index_names(tokens: list[Token]) -> list[exp.Table]:
-    """The index names of ``DROP INDEX [CONCURRENTLY] [IF EXISTS] a [, b ...] [CASCADE | RESTRICT]``."""
-    i = 2
-    while i < len(tokens) and tokens[i].text.upper() in _DROP_INDEX_MODIFIERS:
-        i += 1
-    names: list[exp.Table] = []
-    while i < len(tokens):
-        name, i = _name(tokens, i)
-        if name is None:
-            return []
-        names.append(name)
-        if i < len(tokens) and tokens[i].token_type == TokenType.COMMA:
-            i += 1
-            continue
-        break
-    rest = [token.text.upper() for token in tokens[i:]]
-    return names if rest in ([], ["CASCADE"], ["RESTRICT"]) else []
-
-
 def _rename_constraint(state: ReplayState, tokens: list[Token]) -> bool:
     """``ALTER TABLE [IF EXISTS] [ONLY] t RENAME CONSTRAINT a TO b``: the rule keeps its columns."""
     i = 2
     while i < len(tokens) and tokens[i].text.upper() in ("IF", "EXISTS", "ONLY"):
         i += 1
+    if_exists = any(token.text.upper() == "EXISTS" for token in tokens[2:i])
     target, i = _name(tokens, i)
     words = [token.text.upper() for token in tokens[i:]]
     if target is None or len(words) != 5 or words[:2] != ["RENAME", "CONSTRAINT"] or words[3] != "TO":
@@ -95,7 +68,8 @@ def _rename_constraint(state: ReplayState, tokens: list[Token]) -> bool:
                 for t in (old_token, new_token))
     table = state.table(table_name(target, state.dialect))
     if table is None:
-        state.conflict(f"RENAME CONSTRAINT on {table_name(target, state.dialect)}, which does not exist")
+        if not if_exists:
+            state.conflict(f"RENAME CONSTRAINT on {table_name(target, state.dialect)}, which does not exist")
         return True
     table.uniques = [replace(u, name=new) if u.name == old else u for u in table.uniques]
     table.foreign_keys = [replace(f, name=new) if f.name == old else f for f in table.foreign_keys]

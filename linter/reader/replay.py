@@ -107,10 +107,9 @@ _HANDLERS: tuple[tuple[type[exp.Expression], Callable[[ReplayState, Any], bool]]
 
 def _apply(state: ReplayState, statement: Any) -> bool:
     """Dispatch a statement to its handler; False when it is skipped."""
-    if statement.opaque or statement.expression is None:
+    if statement.opaque:
         if recover(state, statement.text):
             return True
-    if statement.opaque:
         first_line = statement.text.strip().splitlines()[0][:80] if statement.text.strip() else ""
         state.report("unsupported-statement", "warning",
                      f"could not analyse: the parser kept this statement as plain text ({first_line}); "

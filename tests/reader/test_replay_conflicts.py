@@ -59,20 +59,33 @@ def test_opaque_ddl_is_reported_as_unsupported() -> None:
     assert (catalog.statements_read, catalog.statements_skipped) == (2, 1)
 
 
-def test_rename_constraint_and_multi_index_drop_are_read_from_tokens() -> None:
+def test_rename_constraint_is_read_from_tokens() -> None:
     catalog = replay_sql(
         "postgres",
-        "CREATE TABLE berths (id int, code text NOT NULL, pier text NOT NULL);\n"
-        "CREATE UNIQUE INDEX berths_code_ux ON berths (code);\nCREATE UNIQUE INDEX berths_pier_ux ON berths (pier, code);\n"
-        "ALTER TABLE berths ADD CONSTRAINT berths_id_uq UNIQUE (code, id);",
+        "CREATE TABLE berths (id int, code text NOT NULL);\n"
+        "ALTER TABLE berths ADD CONSTRAINT berths_id_uq UNIQUE (code, id), ADD FOREIGN KEY (id) REFERENCES piers;",
         "ALTER TABLE ONLY berths RENAME CONSTRAINT berths_id_uq TO berths_code_id_uq;\n"
-        "DROP INDEX berths_code_ux, public.berths_pier_ux;",
+        "ALTER TABLE berths RENAME CONSTRAINT berths_id_fkey TO berths_pier_fk;\n"
+        "ALTER TABLE IF EXISTS moorings RENAME CONSTRAINT a TO b;\n"
+        "ALTER TABLE moorings RENAME CONSTRAINT a TO b;",
         "ALTER TABLE berths DROP CONSTRAINT berths_code_id_uq;",
     )
     berths = catalog.tables["berths"]
     assert berths.uniques == []
-    assert located(catalog.findings, "syntax-error") == [("002.sql", 2)]
+    assert [f.name for f in berths.foreign_keys] == ["berths_pier_fk"]
+    assert located(catalog.findings, "schema-conflict") == [("002.sql", 4)]
     assert located(catalog.findings, "unsupported-statement") == []
+
+
+def test_several_indexes_in_one_drop() -> None:
+    catalog = replay_sql(
+        "postgres",
+        "CREATE TABLE berths (code text NOT NULL, pier text NOT NULL);\n"
+        "CREATE UNIQUE INDEX berths_code_ux ON berths (code);\nCREATE UNIQUE INDEX berths_pier_ux ON berths (pier, code);",
+        "DROP INDEX CONCURRENTLY IF EXISTS berths_code_ux, public.berths_pier_ux CASCADE;",
+    )
+    assert catalog.tables["berths"].uniques == []
+    assert catalog.findings == []
 
 
 def test_an_unexpected_error_in_one_statement_becomes_a_finding(monkeypatch: pytest.MonkeyPatch) -> None:
