@@ -30,7 +30,7 @@ from linter.model import Table
 from linter.reader.constraints import column_spec, table_constraints
 from linter.reader.ddl import remove_unique
 from linter.reader.names import fold_column, schema_of, table_name
-from linter.reader.state import ReplayState, Shrink, snapshot
+from linter.reader.state import ReplayState
 from linter.reader.tables import add_column, add_constraints, drop_column, rename_column, rename_table, set_nullable
 
 
@@ -120,15 +120,10 @@ def _drop(state: ReplayState, table: Table, action: exp.Drop) -> None:
                 continue
             name = _column(state, table, node, "DROP")
             if name is not None:
-                _record_shrink(state, table)
+                state.shrink(table)
                 drop_column(state, table, name)
         else:
             _drop_constraint(state, table, fold_column(node, state.dialect))
-
-
-def _record_shrink(state: ReplayState, table: Table) -> None:
-    """Note that a column of ``table`` is about to be dropped, with the table as it is now."""
-    state.shrinks.append(Shrink(table, snapshot(table), state.span, state.order, dropped=False))
 
 
 def _drop_constraint(state: ReplayState, table: Table, name: str) -> None:

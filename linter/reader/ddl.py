@@ -23,7 +23,7 @@ from sqlglot import exp
 from linter.model import Table, Unique
 from linter.reader.constraints import column_spec, table_constraints
 from linter.reader.names import column_name, fold_column, schema_of, table_name
-from linter.reader.state import ReplayState, Shrink, snapshot
+from linter.reader.state import ReplayState
 from linter.reader.tables import add_column, add_constraints
 
 
@@ -124,7 +124,7 @@ def drop_table(state: ReplayState, name: str, if_exists: bool) -> None:
         if not if_exists:
             state.conflict(f"DROP TABLE of {name}, which does not exist", name)
         return
-    state.shrinks.append(Shrink(table, snapshot(table), state.span, state.order, dropped=True))
+    state.shrink(table)
     state.event(table, "dropped", f"dropped table {name}")
     del state.catalog.tables[name]
     state.catalog.dropped.append(table)

@@ -125,14 +125,20 @@ def _record(state: ReplayState, sources: list[Table], target: Table, lineage: di
     for source in sources:
         if source is not target:
             traced = lineage if len(sources) == 1 else {column: None for column in lineage}
-            state.feeds.append(Feed(source, target, traced, state.span, state.path, state.order))
+            state.feeds.append(Feed(source, target, traced, state.span, state.order))
+
+
+def _target(state: ReplayState, node: exp.Expression) -> tuple[exp.Expression, list[str]]:
+    """The table node of ``t`` or ``t (a, b)``, and the column names listed (folded)."""
+    if not isinstance(node, exp.Schema):
+        return node, []
+    return node.this, [fold_column(i, state.dialect) for i in node.expressions if isinstance(i, exp.Identifier)]
 
 
 def create_view(state: ReplayState, create: exp.Create) -> bool:
     """Remember a view's column names (None: unknown) for ``SELECT * FROM v``; the view itself is skipped."""
-    target, query = create.this, create.expression
-    listed = [fold_column(i, state.dialect) for i in target.expressions] if isinstance(target, exp.Schema) else []
-    target = target.this if isinstance(target, exp.Schema) else target
+    target, listed = _target(state, create.this)
+    query = create.expression
     if isinstance(target, exp.Table) and isinstance(query, exp.Query):
         name, span = table_name(target, state.dialect), state.span_of(target)
         names = listed or [output for output, _ in query_lineage(state, query).columns or []]
@@ -145,10 +151,7 @@ def insert_select(state: ReplayState, insert: exp.Insert) -> bool:
     query = insert.expression
     if not isinstance(query, exp.Query):
         return False
-    target_node = insert.this
-    listed = [fold_column(i, state.dialect) for i in target_node.expressions if isinstance(i, exp.Identifier)] \
-        if isinstance(target_node, exp.Schema) else []
-    table_node = target_node.this if isinstance(target_node, exp.Schema) else target_node
+    table_node, listed = _target(state, insert.this)
     if not isinstance(table_node, exp.Table):
         return False
     target = state.table(table_name(table_node, state.dialect))
@@ -167,15 +170,13 @@ def insert_select(state: ReplayState, insert: exp.Insert) -> bool:
 def create_from_query(state: ReplayState, create: exp.Create | exp.Select) -> bool:
     """CREATE TABLE ... AS SELECT (and T-SQL SELECT ... INTO): a new table, columns traced."""
     if isinstance(create, exp.Select):
-        into = create.args.get("into")
-        target_node, listed, query = into.this, [], create.copy()
+        target_node, listed = _target(state, create.args["into"].this)
+        query = create.copy()
         query.set("into", None)
-        if_not_exists = False
     else:
-        target_node, query = create.this, create.expression
-        listed = [fold_column(i, state.dialect) for i in target_node.expressions] if isinstance(target_node, exp.Schema) else []
-        target_node = target_node.this if isinstance(target_node, exp.Schema) else target_node
-        if_not_exists = bool(create.args.get("exists"))
+        target_node, listed = _target(state, create.this)
+        query = create.expression
+    if_not_exists = bool(create.args.get("exists"))
     if not isinstance(target_node, exp.Table) or not isinstance(query, exp.Query):
         return False
     name = table_name(target_node, state.dialect)

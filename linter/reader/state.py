@@ -28,7 +28,6 @@ class Feed:
     target: Table
     lineage: dict[str, str | None]
     span: Span
-    path: str
     order: int
 
 
@@ -40,7 +39,6 @@ class Shrink:
     before: Table
     span: Span
     order: int
-    dropped: bool
 
 
 @dataclass
@@ -113,6 +111,10 @@ class ReplayState:
             table.columns += [Column(c, "", True, self.span) for c in absent]
             return []
         return absent
+
+    def shrink(self, table: Table) -> None:
+        """Note that ``table`` is about to be dropped or to lose columns, keeping its state now."""
+        self.shrinks.append(Shrink(table, snapshot(table), self.span, self.order))
 
     def relation(self, name: str) -> Table | None:
         """The live table or the view called ``name``, or None."""
