@@ -82,21 +82,25 @@ def reference(ref: exp.Reference, dialect: str) -> tuple[str, tuple[str, ...]]:
     return table_name(target, dialect), ()
 
 
-def _key(node: exp.Expression, name: str | None, siblings: list, dialect: str) -> KeySpec | None:
-    """A key from a PrimaryKey / PrimaryKeyColumnConstraint / UniqueColumnConstraint node."""
+def _key(node: exp.Expression, outer: exp.Expression, name: str | None, dialect: str) -> KeySpec | None:
+    """A key from a PrimaryKey / PrimaryKeyColumnConstraint / UniqueColumnConstraint inside ``outer``.
+
+    ``outer`` is the table-level item (a named ``Constraint`` or the node itself): its span is the
+    key's, and T-SQL keeps the column list in a (Non)Clustered sibling inside it.
+    """
     if isinstance(node, exp.PrimaryKey):
-        return KeySpec(_columns(list(node.expressions), dialect), "primary key", name, node)
+        return KeySpec(_columns(list(node.expressions), dialect), "primary key", name, outer)
     source = "primary key" if isinstance(node, exp.PrimaryKeyColumnConstraint) else "unique constraint"
     inner = node.this if isinstance(node, exp.UniqueColumnConstraint) else None
     items = _items(inner)
     if isinstance(inner, exp.Schema) and inner.this is not None:
         name = name or _name(inner.this, dialect)
-    if not items:
-        side = next((s for s in siblings if isinstance(s, _SIDE_LISTS)), None)
+    if not items and isinstance(outer, exp.Constraint):
+        side = next((s for s in outer.expressions if isinstance(s, _SIDE_LISTS)), None)
         items = _items(side)
     if not items:
         return None
-    return KeySpec(_columns(items, dialect), source, name, node)
+    return KeySpec(_columns(items, dialect), source, name, outer)
 
 
 def table_constraints(node: exp.Expression, dialect: str) -> list[Spec]:
@@ -109,9 +113,9 @@ def table_constraints(node: exp.Expression, dialect: str) -> list[Spec]:
     specs: list[Spec] = []
     for part in parts:
         if isinstance(part, (exp.PrimaryKey, exp.PrimaryKeyColumnConstraint, exp.UniqueColumnConstraint)):
-            key = _key(part, name, parts, dialect)
+            key = _key(part, node, name, dialect)
             if key is not None:
-                specs.append(KeySpec(key.columns, key.source, key.name, node))
+                specs.append(key)
         elif isinstance(part, exp.ForeignKey):
             columns = tuple(c for c in _columns(list(part.expressions), dialect) if c is not None)
             ref = part.args.get("reference")

@@ -3,7 +3,6 @@
 Each handler receives the one ``ReplayState`` and reads the current statement, dialect and file from
 it, so a finding or an event always gets the span of the statement being replayed.
 
->>> from linter.model import Span
 >>> state = ReplayState(Catalog())
 >>> state.begin_file("db/001.sql", "postgres")
 >>> state.dialect, state.path
