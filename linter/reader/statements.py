@@ -258,7 +258,7 @@ def _tokenize(reader: _Reader, start: int, end: int) -> list[Token]:
         stop = start + where
         scan_end = end if reason is None else stop
         if reason is not None:
-            skipped = reader.lines.position(end)[0] - reader.lines.position(stop)[0]
+            skipped = reader.lines.position(end - 1)[0] - reader.lines.position(stop)[0]
             rest = f"; the {skipped} line(s) after it were not read" if skipped > 0 else ""
             reader.finding("syntax-error", "error", stop, min(stop + 1, end), f"{reason}{rest}")
         try:
