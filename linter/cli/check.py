@@ -8,6 +8,7 @@ import sys
 import click
 
 from linter.atomic_write import atomic_write
+from linter.cli.baseline_check import apply_baseline, baseline_report, read_baseline
 from linter.cli.errors import Failure, reported
 from linter.cli.options import checked_dialect, exit_status, split_ids, use_color
 from linter.cli.show_rules import unknown_rule
@@ -95,11 +96,13 @@ def write_report(text: str, output: str | None) -> None:
 @click.option("--context", type=click.Path(file_okay=False, path_type=str),
               help="Folder replayed for context; only findings in the given PATHS are reported.")
 @click.option("--color/--no-color", default=None, help="Colour the text report (default: on a terminal, unless NO_COLOR is set).")
+@click.option("--baseline", "baseline_path", type=click.Path(dir_okay=False, path_type=str),
+              help="Report only findings not recorded in this baseline file (see: normguard baseline).")
 @click.option("--debug", is_flag=True, help="Print the traceback of an internal error.")
 def check(
     paths: tuple[str, ...], dialect: str | None, fmt: str, output: str | None, target: str | None,
     select: tuple[str, ...], ignore: tuple[str, ...], config_path: str | None, fail_on: str | None,
-    context: str | None, color: bool | None, debug: bool,
+    context: str | None, color: bool | None, baseline_path: str | None, debug: bool,
 ) -> int:
     """Check SQL files and folders (default: 'paths' from the settings) and report each problem."""
     with reported(debug):
@@ -108,8 +111,15 @@ def check(
             select=_rule_ids(select), ignore=_rule_ids(ignore), fail_on=fail_on,
         )
         read, report = plan(paths, context, config)
+        recorded = read_baseline(baseline_path) if baseline_path is not None else None
         result = run(config, read, report_paths=report)
+        if recorded is not None:
+            result, comparison = apply_baseline(result, recorded, report or read)
         code = exit_status(result.findings, config.fail_on)
         colored = use_color(color, is_tty=output is None and sys.stdout.isatty(), environ=os.environ)
-        write_report(render(fmt, result, color=colored, exit_code=code), output)
+        if recorded is None:
+            text = render(fmt, result, color=colored, exit_code=code)
+        else:
+            text = baseline_report(fmt, result, comparison, baseline_path, color=colored, exit_code=code)
+        write_report(text, output)
         return code

@@ -12,6 +12,8 @@ from typing import Any
 import click
 
 from linter import __version__
+from linter.cli.audit import audit
+from linter.cli.baseline import baseline
 from linter.cli.check import check
 from linter.cli.explain import explain
 from linter.cli.show_rules import show_rules
@@ -75,3 +77,5 @@ def main() -> None:
 main.add_command(check)
 main.add_command(show_rules)
 main.add_command(explain)
+main.add_command(baseline)
+main.add_command(audit)
