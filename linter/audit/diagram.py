@@ -19,7 +19,8 @@ from html import escape
 from linter.audit.layout import BOX_HEIGHT, FONT_SIZE, Arrow, Box, Lane, Layout, diagram_layout
 
 _RADIUS = 7
-_HEAD = 7
+_HEAD = 8
+_SHRINK = 0.75  # a wide diagram may shrink this far to fit the page, then it scrolls
 _FALLBACK = {"key": "#2f6f9f", "violation": "#c0392b", "other": "#7a6a9a"}
 
 
@@ -38,6 +39,7 @@ def dependency_svg(
     parts = [
         f'<svg xmlns="http://www.w3.org/2000/svg" class="dep-diagram" role="img" aria-label="{label}"'
         f' width="{layout.width:g}" height="{layout.height:g}"'
+        f' style="width:clamp({_SHRINK * layout.width:.0f}px,100%,{layout.width:g}px);height:auto"'
         f' viewBox="0 0 {layout.width:g} {layout.height:g}" font-family="monospace" font-size="{FONT_SIZE}">',
         f"<title>{label}</title>",
     ]
@@ -87,7 +89,7 @@ def _lane(layout: Layout, lane: Lane) -> str:
     return (
         f'<g class="dep dep-{escape(arrow.kind, quote=True)}" stroke="{colour}" fill="{colour}">'
         f"<title>{tooltip}</title>"
-        f'<path class="halo" d="{" ".join(paths)}" fill="none" stroke="#fff" stroke-width="6"/>'
+        f'<path class="halo" d="{" ".join(paths)}" fill="none" stroke="#fff" stroke-width="5"/>'
         f'<path d="{" ".join(paths)}" fill="none" stroke-width="1.6" stroke-linecap="round"/>'
         f'<path d="M{left:g} {y:g}H{right:g}" fill="none" stroke-width="4" stroke-linecap="round"/>'
         f'<path d="{" ".join(heads)}" stroke="none"/>{dots}</g>'

@@ -14,6 +14,7 @@ True
 """
 from __future__ import annotations
 
+import posixpath
 from collections.abc import Mapping, Sequence
 from typing import Any
 
@@ -30,6 +31,8 @@ def anchor(index: int) -> str:
 
 def render_html(data: Mapping[str, Any]) -> str:
     """The whole page for the audit data built by ``linter.audit.data.audit_data``."""
+    base = posixpath.commonpath(data["paths"]) if data["paths"] else ""
+    data = _relative(data, base)
     tables: Sequence[Record] = data["tables"]
     anchors = {table["name"]: anchor(i) for i, table in enumerate(tables, 1)}
     title = f"normguard audit \u2014 {', '.join(data['paths'])}"
@@ -58,6 +61,18 @@ def render_html(data: Mapping[str, Any]) -> str:
         + "\n".join(body)
         + "\n</body>\n</html>\n"
     )
+
+
+def _relative(value: Any, base: str) -> Any:
+    """A copy of the data with each ``path`` inside the folder ``base`` written relative to it."""
+    if isinstance(value, Mapping):
+        return {
+            key: item[len(base) + 1:] if key == "path" and base and str(item).startswith(base + "/") else _relative(item, base)
+            for key, item in value.items()
+        }
+    if isinstance(value, list):
+        return [_relative(item, base) for item in value]
+    return value
 
 
 def _cards(summary: Record, target: str) -> str:

@@ -14,6 +14,7 @@ from __future__ import annotations
 
 from collections.abc import Mapping, Sequence
 from html import escape
+from itertools import groupby
 from typing import Any
 
 from linter.audit.diagram import dependency_svg
@@ -52,17 +53,23 @@ def table_section(record: Record, anchor: str) -> str:
     target = '<span class="badge ok">meets target</span>' if record["meets_target"] else (
         '<span class="badge short">below target</span>'
     )
+    columns = record["columns"]
+    facts = " \u00b7 ".join([
+        _count(len(columns), "column"), _count(len(record["keys"]), "candidate key"),
+        _count(len(record["dependencies"]), "dependency", "dependencies"), _count(len(record["findings"]), "finding"),
+    ])
+    everything = [c["name"] for c in columns]
     parts = [
         f'<section class="table-section panel" id="{e(anchor)}" data-table="{e(record["name"])}">',
         f'<div class="head"><h2>{e(record["name"])}</h2>{nf_badge(record["normal_form"])}{target}'
         f"{where(record)}</div>",
-        '<div class="columns2">',
-        f"<div><h3>Columns</h3>{_columns(record['columns'])}</div>",
-        f"<div><h3>Candidate keys</h3>{_keys(record)}</div>",
-        "</div>",
-        "<h3>Dependency diagram</h3>",
+        f'<p class="facts">{facts}</p>',
         _diagram(record),
-        f"<h3>Dependencies</h3>{_dependencies(record['dependencies'])}",
+        '<div class="columns2">',
+        f"<div><h3>Columns</h3>{_columns(columns)}</div>",
+        f"<div><h3>Candidate keys</h3>{_keys(record)}"
+        f"<h3>Dependencies</h3>{_dependencies(record['dependencies'], everything)}</div>",
+        "</div>",
         f"<h3>Violations and other findings</h3>{_findings(record['findings'])}",
         f"<h3>Proposed decomposition</h3>{_decomposition(record['decomposition'])}",
         f"<h3>History</h3>{_history(record['history'])}",
@@ -71,17 +78,23 @@ def table_section(record: Record, anchor: str) -> str:
     return "\n".join(parts)
 
 
+def _count(count: int, word: str, words: str = "") -> str:
+    """``1 column``, ``3 columns``."""
+    return f"{count} {word if count == 1 else words or word + 's'}"
+
+
 def _columns(columns: Sequence[Record]) -> str:
     """The columns in declaration order with type, nullability and key membership."""
     if not columns:
         return '<p class="empty">No columns.</p>'
     rows = "".join(
         f"<tr><td><code>{e(c['name'])}</code></td><td class=\"mono\">{e(c['type'])}</td>"
-        f"<td>{'null' if c['nullable'] else 'not null'}</td>"
-        f"<td>{'primary key' if c['primary'] else 'in a key' if c['prime'] else ''}</td></tr>"
+        f"<td>{'' if c['nullable'] else 'not null'}</td>"
+        f"<td>{'primary key' if c['primary'] else 'key' if c['prime'] else ''}</td></tr>"
         for c in columns
     )
-    return f"<table><thead><tr><th>Name</th><th>Type</th><th>Null</th><th>Key</th></tr></thead><tbody>{rows}</tbody></table>"
+    head = "<thead><tr><th>Name</th><th>Type</th><th>Null</th><th>Key</th></tr></thead>"
+    return f'<table class="compact">{head}<tbody>{rows}</tbody></table>'
 
 
 def _keys(record: Record) -> str:
@@ -126,15 +139,17 @@ def _diagram(record: Record) -> str:
     return f'<div class="diagram">{svg}</div><ul class="legend">{legend}</ul>'
 
 
-def _dependencies(dependencies: Sequence[Record]) -> str:
-    """The given dependencies with where each comes from."""
+def _dependencies(dependencies: Sequence[Record], everything: Sequence[str]) -> str:
+    """The given dependencies with where each comes from; a key's long right side is summed up."""
     if not dependencies:
         return '<p class="empty">No dependencies known: declare a key or annotate one.</p>'
-    rows = "".join(
-        f"<tr><td>{names(d['lhs'])} \u2192 {names(d['rhs'])}</td><td>{e(d['source'])}</td><td>{where(d)}</td></tr>"
-        for d in dependencies
-    )
-    return f"<table><thead><tr><th>Dependency</th><th>From</th><th>Where</th></tr></thead><tbody>{rows}</tbody></table>"
+    items = []
+    for d in dependencies:
+        rest = len(everything) - len(d["lhs"])
+        whole = len(d["rhs"]) == rest and rest > 3
+        rhs = f"every other column ({rest})" if whole else names(d["rhs"])
+        items.append(f"<li>{names(d['lhs'])} \u2192 {rhs}<br><span class=\"from\">{e(d['source'])}</span> {where(d)}</li>")
+    return f'<ul class="deps">{"".join(items)}</ul>'
 
 
 def _findings(findings: Sequence[Record]) -> str:
@@ -171,10 +186,12 @@ def _decomposition(decomposition: Record | None) -> str:
 
 
 def _history(history: Sequence[Record]) -> str:
-    """The table's events through the migrations, oldest first."""
+    """The table's events through the migrations, oldest first, grouped by migration file."""
     if not history:
         return '<p class="empty">No recorded events.</p>'
-    items = "".join(
-        f'<li><span class="action">{e(h["action"])}</span> {e(h["detail"])} {where(h)}</li>' for h in history
-    )
-    return f'<ol class="history">{items}</ol>'
+    items = []
+    for _, events in groupby(history, key=lambda h: h["path"]):
+        listed = list(events)
+        what = "; ".join(f'<span class="action">{e(h["action"])}</span> {e(h["detail"])}' for h in listed)
+        items.append(f"<li>{where(listed[0])}<div>{what}</div></li>")
+    return f'<ol class="history">{"".join(items)}</ol>'

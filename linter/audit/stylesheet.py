@@ -43,6 +43,7 @@ code { background: var(--code); padding: 1px 5px; border-radius: 4px; }
 td code { white-space: nowrap; }
 .loc { color: var(--muted); white-space: nowrap; }
 .lede { color: var(--muted); margin: 0 0 22px; }
+.panel > h3:first-child, .panel > div > h3:first-child { margin-top: 0; }
 .panel {
   background: var(--surface); border: 1px solid var(--rule); border-radius: 10px;
   box-shadow: var(--shadow); padding: 18px 22px; margin: 18px 0;
@@ -93,8 +94,17 @@ section.table-section { scroll-margin-top: 12px; }
 .piece { border: 1px dashed var(--box-line); border-radius: 8px; padding: 8px 12px; }
 .caution { border-left: 4px solid var(--sev-warning); padding: 6px 12px; background: var(--paper); font-size: .9rem; }
 pre { background: var(--code); padding: 10px 12px; border-radius: 6px; overflow-x: auto; font-size: .85rem; }
-ol.history { margin: 0; padding-left: 22px; font-size: .92rem; }
-ol.history .action { font-weight: 600; }
+table.compact td { padding: 3px 10px 3px 0; }
+table.compact { font-size: .88rem; }
+ol.history { list-style: none; margin: 0; padding: 0 0 0 14px; border-left: 2px solid var(--rule); font-size: .9rem; }
+ol.history li { position: relative; padding: 3px 0 7px 6px; break-inside: avoid; }
+ol.history li::before { content: ""; position: absolute; left: -20px; top: 9px; width: 8px; height: 8px; border-radius: 50%; background: var(--accent); }
+ol.history .loc { white-space: normal; overflow-wrap: anywhere; }
+.history .action { font-weight: 600; }
+.facts { color: var(--muted); margin: 2px 0 4px; font-size: .9rem; }
+ul.deps { list-style: none; padding: 0; margin: 0; }
+ul.deps li { padding: 5px 0; border-bottom: 1px solid var(--rule); }
+ul.deps .from { color: var(--muted); font-size: .85rem; }
 footer { color: var(--muted); font-size: .85rem; margin-top: 36px; }
 @media (max-width: 760px) { .columns2 { grid-template-columns: 1fr; } }
 @media print {
