@@ -87,7 +87,7 @@ def _join_lines(analysis: SplitAnalysis) -> list[str]:
     rows = [(analysis.split.pieces[i].table, *row) for i, row in zip(analysis.carrying, chase.tableau)]
     full = next(row[0] for row in rows if all(symbol.startswith("a") for symbol in row[1:]))
     return [f"lossless by the chase: in the final tableau the row of {full} holds only distinguished"
-            " symbols (a1, a2 ...), so every join of the pieces' projections is an original row:",
+            " symbols (a1, a2 ...), so every row the pieces join into is an original row:",
             *text_table(header, rows)]
 
 
