@@ -4,21 +4,19 @@ Covers ADD / DROP / RENAME COLUMN, ALTER COLUMN SET / DROP NOT NULL and type cha
 ``ALTER COLUMN c INT NOT NULL`` too), MySQL MODIFY / CHANGE, ADD / DROP CONSTRAINT, DROP PRIMARY KEY,
 MySQL DROP INDEX / DROP FOREIGN KEY and RENAME TO. Actions sqlglot leaves opaque are ignored.
 
->>> import sqlglot
->>> from linter.model import Catalog, Span
+>>> from linter.model import Catalog
 >>> from linter.reader.ddl import create_table
->>> class _Statement:
-...     span = Span("db/002.sql", 1, 1, 1, 2)
-...     def span_of(self, node): return None
+>>> from linter.reader.sources import Source
+>>> from linter.reader.statements import split_file
+>>> sql = "CREATE TABLE ferries (id INT, name TEXT);\\nALTER TABLE ferries ADD CONSTRAINT ferry_name UNIQUE (name);"
+>>> create, alter = split_file(Source("db/002.sql", sql), "postgres").statements
 >>> state = ReplayState(Catalog())
->>> state.begin_statement(_Statement())
->>> create_table(state, sqlglot.parse_one("CREATE TABLE ferries (id INT, name TEXT)"))
-True
->>> alter_table(state, sqlglot.parse_one("ALTER TABLE ferries ADD CONSTRAINT ferry_name UNIQUE (name)"))
-True
->>> [(u.name, u.columns, state.catalog.tables["ferries"].is_nullable_unique(u))
+>>> for statement, handler in ((create, create_table), (alter, alter_table)):
+...     state.begin_statement(statement)
+...     _ = handler(state, statement.expression)
+>>> [(u.name, u.columns, u.span.line, state.catalog.tables["ferries"].is_nullable_unique(u))
 ...  for u in state.catalog.tables["ferries"].uniques]
-[('ferry_name', ('name',), True)]
+[('ferry_name', ('name',), 2, True)]
 """
 from __future__ import annotations
 

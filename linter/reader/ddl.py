@@ -4,17 +4,17 @@ Each handler returns True when it understood the statement (False: the replay co
 A unique index is a key only over plain columns without WHERE; otherwise it is kept flagged
 ``expression`` or ``partial`` so rules can still talk about it.
 
->>> import sqlglot
->>> from linter.model import Catalog, Span
->>> class _Statement:
-...     span = Span("db/001.sql", 1, 1, 1, 2)
-...     def span_of(self, node): return None
+>>> from linter.model import Catalog
+>>> from linter.reader.sources import Source
+>>> from linter.reader.statements import split_file
+>>> sql = "CREATE TABLE depots (id INT PRIMARY KEY, city TEXT);"
+>>> [statement] = split_file(Source("db/001.sql", sql), "postgres").statements
 >>> state = ReplayState(Catalog())
->>> state.begin_statement(_Statement())
->>> create_table(state, sqlglot.parse_one("CREATE TABLE depots (id INT PRIMARY KEY, city TEXT)"))
+>>> state.begin_statement(statement)
+>>> create_table(state, statement.expression)
 True
->>> [(u.source, u.columns) for u in state.catalog.tables["depots"].keys]
-[('primary key', ('id',))]
+>>> [(u.source, u.columns, u.span.column) for u in state.catalog.tables["depots"].keys]
+[('primary key', ('id',), 22)]
 """
 from __future__ import annotations
 

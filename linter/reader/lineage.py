@@ -6,19 +6,17 @@ catalog), or None when the value is an expression, an aggregate, or comes from a
 subquery. Every catalog table the query reads is recorded as feeding the target (``state.feeds``),
 which is what ``splits`` later looks at.
 
->>> import sqlglot
->>> from linter.model import Catalog, Span
+>>> from linter.model import Catalog
 >>> from linter.reader.ddl import create_table
->>> class _Statement:
-...     span = Span("db/003.sql", 1, 1, 1, 2)
-...     def span_of(self, node): return None
+>>> from linter.reader.sources import Source
+>>> from linter.reader.statements import split_file
+>>> sql = ("CREATE TABLE couriers (id INT, depot_city TEXT);\\n"
+...        "CREATE TABLE depots AS SELECT DISTINCT depot_city AS city, upper(depot_city) AS code FROM couriers;")
+>>> create, move = split_file(Source("db/003.sql", sql), "postgres").statements
 >>> state = ReplayState(Catalog())
->>> state.begin_statement(_Statement())
->>> create_table(state, sqlglot.parse_one("CREATE TABLE couriers (id INT, depot_city TEXT)"))
-True
->>> create_from_query(state, sqlglot.parse_one("CREATE TABLE depots AS SELECT DISTINCT depot_city AS city, "
-...                                            "upper(depot_city) AS code FROM couriers"))
-True
+>>> for statement, handler in ((create, create_table), (move, create_from_query)):
+...     state.begin_statement(statement)
+...     _ = handler(state, statement.expression)
 >>> state.feeds[0].lineage
 {'city': 'depot_city', 'code': None}
 """

@@ -46,11 +46,17 @@ def add_constraints(state: ReplayState, table: Table, specs: tuple[Spec, ...] | 
     return added
 
 
+def _lacks(state: ReplayState, table: Table, columns: tuple[str | None, ...], what: str) -> bool:
+    """True (and a conflict) when a constraint names columns the table does not have."""
+    missing = state.missing(table, columns)
+    if missing:
+        state.conflict(f"{what} of {table.name} names missing column(s) {', '.join(missing)}", table.name)
+    return bool(missing)
+
+
 def _add_key(state: ReplayState, table: Table, spec: KeySpec) -> bool:
     """Record a PRIMARY KEY / UNIQUE constraint (a primary key makes its columns NOT NULL)."""
-    missing = state.missing(table, spec.columns)
-    if missing:
-        state.conflict(f"{spec.source} of {table.name} names missing column(s) {', '.join(missing)}", table.name)
+    if _lacks(state, table, spec.columns, spec.source):
         return False
     if spec.source == "primary key" and any(u.is_primary for u in table.uniques):
         state.conflict(f"table {table.name} already has a primary key", table.name)
@@ -66,9 +72,7 @@ def _add_key(state: ReplayState, table: Table, spec: KeySpec) -> bool:
 
 def _add_foreign_key(state: ReplayState, table: Table, spec: ForeignKeySpec) -> bool:
     """Record a FOREIGN KEY / REFERENCES over existing columns."""
-    missing = state.missing(table, spec.columns)
-    if missing:
-        state.conflict(f"foreign key of {table.name} names missing column(s) {', '.join(missing)}", table.name)
+    if _lacks(state, table, spec.columns, "foreign key"):
         return False
     ordinal = 1 + sum(1 for f in table.foreign_keys if f.name and "_ibfk_" in f.name)
     name = spec.name or implied_name(state.dialect, table.name, "foreign key", spec.columns, ordinal)
