@@ -121,5 +121,7 @@ def check(
             text = render(fmt, result, color=colored, exit_code=code)
         else:
             text = baseline_report(fmt, result, comparison, baseline_path, color=colored, exit_code=code)
+        if output is not None and relative(output) in result.catalog.files:
+            raise Failure(f"{output}: refusing to write the report over a SQL file that was just read")
         write_report(text, output)
         return code

@@ -87,6 +87,14 @@ def test_output_untouched_when_the_run_fails(example, runner, monkeypatch, args)
     assert [p.name for p in example.iterdir() if p.name.endswith(".tmp")] == []
 
 
+def test_output_never_overwrites_an_input_file(example, runner):
+    migration = example / "migrations" / "0002_routes.sql"
+    before = migration.read_bytes()
+    line = _one_line_error(runner.invoke(main, ["check", "-o", "migrations/0002_routes.sql"]))
+    assert line.endswith("refusing to write the report over a SQL file that was just read")
+    assert migration.read_bytes() == before
+
+
 def test_output_into_a_missing_folder(example, runner):
     line = _one_line_error(runner.invoke(main, ["check", "--output", "no/such/dir/report.txt"]))
     assert "no/such/dir/report.txt" in line
