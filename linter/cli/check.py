@@ -88,14 +88,17 @@ def write_report(text: str, output: str | None) -> None:
               help="Write the report to FILE (replaced whole, only once the report is complete).")
 @click.option("--target", type=click.Choice(TARGETS, case_sensitive=False),
               help="Normal form every table must reach (default from the settings: bcnf).")
-@click.option("--select", multiple=True, metavar="RULES", help="Run only these rules (repeat or comma-separate).")
-@click.option("--ignore", multiple=True, metavar="RULES", help="Do not run these rules (repeat or comma-separate).")
+@click.option("--select", multiple=True, metavar="RULES",
+              help="Run only these rules (repeat or comma-separate).")
+@click.option("--ignore", multiple=True, metavar="RULES",
+              help="Do not run these rules (repeat or comma-separate).")
 @click.option("--config", "config_path", type=click.Path(dir_okay=False, path_type=str),
               help="Settings file (default: .normguard.yaml, else [tool.normguard] in pyproject.toml).")
 @click.option("--fail-on", type=click.Choice(FAIL_LEVELS), help="Lowest severity that makes the exit status 1.")
 @click.option("--context", type=click.Path(file_okay=False, path_type=str),
               help="Folder replayed for context; only findings in the given PATHS are reported.")
-@click.option("--color/--no-color", default=None, help="Colour the text report (default: on a terminal, unless NO_COLOR is set).")
+@click.option("--color/--no-color", default=None,
+              help="Colour the text report (default: on a terminal, unless NO_COLOR is set).")
 @click.option("--baseline", "baseline_path", type=click.Path(dir_okay=False, path_type=str),
               help="Report only findings not recorded in this baseline file (see: normguard baseline).")
 @click.option("--debug", is_flag=True, help="Print the traceback of an internal error.")

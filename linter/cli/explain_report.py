@@ -57,9 +57,10 @@ def _violations(analysis: TableAnalysis) -> list[str]:
     lines = []
     for violation in analysis.report.violations:
         kind = f"{_KIND[violation.kind]} (breaks {KIND_FORM[violation.kind]})"
-        lines.append(f"  {names.format_fd(violation.fd)}: {kind}, against key {analysis.format_key(violation.key)}")
-        steps = "; ".join(f"{names.format_fd(s.fd)} ({s.origin}, {s.span.gnu()})" for s in analysis.derivation(violation.fd))
-        lines.append(f"    derived from {steps}")
+        key = analysis.format_key(violation.key)
+        lines.append(f"  {names.format_fd(violation.fd)}: {kind}, against key {key}")
+        steps = [f"{names.format_fd(s.fd)} ({s.origin}, {s.span.gnu()})" for s in analysis.derivation(violation.fd)]
+        lines.append(f"    derived from {'; '.join(steps)}")
     return lines or ["  none"]
 
 
