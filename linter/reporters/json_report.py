@@ -2,6 +2,13 @@
 
 Keys are fixed (external checks read them): ``tool``, ``findings`` and ``tables``. Every list is
 sorted, so two runs on the same input give the same bytes.
+
+>>> from linter.model import Finding, Span
+>>> found = Finding("transitive-dependency", "warning", Span("db/001.sql", 5, 4, 5, 30), "breaks 3NF",
+...                 "couriers", (("depot_id",), ("depot_city", "depot_area")), fingerprint="9f")
+>>> record = finding_record(found)
+>>> record["dependency"], record["end_column"]
+({'lhs': ['depot_id'], 'rhs': ['depot_area', 'depot_city']}, 30)
 """
 from __future__ import annotations
 
