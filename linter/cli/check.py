@@ -47,6 +47,8 @@ def plan(paths: tuple[str, ...], context: str | None, config: Config) -> tuple[l
         return given, None
     where = "--context" if context is not None else f"'migrations' in {config.source}"
     (folder,) = existing([folder], f"from {where}")
+    if any(_inside(folder, path) for path in given):
+        return given, None  # the whole folder was asked for: nothing to add, nothing to leave out
     return [folder, *(path for path in given if not _inside(path, folder))], given
 
 

@@ -79,6 +79,11 @@ def test_given_files_are_checked_in_the_context_of_the_migrations_folder(example
     assert "schema-conflict" in {f["rule"] for f in findings}
 
 
+def test_asking_for_the_whole_folder_reports_everything(example, runner):
+    _, findings = _findings(runner, "migrations")
+    assert {(f["rule"], f["path"], f["line"]) for f in findings} == EXPECTED
+
+
 def test_context_option_without_settings(example, runner, tmp_path):
     (example / ".normguard.yaml").unlink()
     _, alone = _findings(runner, "migrations/0005_fix_ups.sql")
