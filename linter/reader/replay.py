@@ -61,33 +61,39 @@ def replay(
             else:
                 _skip_statement(state, statement)
         _annotate(state, file.script.trailing_comments, None)
-        finish_file(state)
-    finish_declared(state)
-    attach_config(state, config_dependencies or {}, config_dialect)
+        _guarded(state, "unsupported-statement", "working out the splits of this file", finish_file, state)
+    _guarded(state, "unsupported-statement", "recording declared splits", finish_declared, state)
+    _guarded(state, "annotation-error", "attaching configured dependencies", attach_config,
+             state, config_dependencies or {}, config_dialect)
     return state.catalog
+
+
+def _guarded(state: ReplayState, rule: str, doing: str, step: Callable[..., Any], *args: Any) -> Any:
+    """Run one step of the replay; an unexpected error becomes a finding at the current statement.
+
+    A bug or an odd tree must not stop the replay of everything else, nor reach the user as a
+    traceback. Returns the step's result, or None after an error.
+    """
+    try:
+        return step(*args)
+    except Exception as error:
+        severity = "error" if rule == "annotation-error" else "warning"
+        state.report(rule, severity, f"could not analyse: internal error while {doing} ({type(error).__name__}: {error})")
+        return None
 
 
 def _replay_statement(state: ReplayState, statement: Any) -> None:
     """Apply one statement and its annotations; no exception escapes."""
     state.begin_statement(statement)
     state.catalog.statements_read += 1
-    try:
-        understood = _apply(state, statement)
-    except Exception as error:  # a bug or an odd tree must not stop the replay of other statements
-        state.report("unsupported-statement", "warning",
-                     f"could not analyse: internal error while replaying this statement ({type(error).__name__}: {error})")
-        understood = False
-    if not understood:
+    if not _guarded(state, "unsupported-statement", "replaying this statement", _apply, state, statement):
         state.catalog.statements_skipped += 1
     _annotate(state, statement.comments, _host(state, statement.expression))
 
 
 def _annotate(state: ReplayState, comments: Any, host: str | None) -> None:
     """Apply the annotations among a statement's comments; no exception escapes."""
-    try:
-        attach_comments(state, comments, host)
-    except Exception as error:  # as for statements: report at the statement, go on
-        state.report("annotation-error", "error", f"could not apply annotations: {type(error).__name__}: {error}")
+    _guarded(state, "annotation-error", "applying the annotations here", attach_comments, state, comments, host)
 
 
 def _skip_statement(state: ReplayState, statement: Any) -> None:
