@@ -29,7 +29,14 @@ from linter.reader.constraints import column_spec, table_constraints
 from linter.reader.ddl import remove_unique
 from linter.reader.names import fold_column, schema_of, table_name
 from linter.reader.state import ReplayState
-from linter.reader.tables import add_column, add_constraints, drop_column, rename_column, rename_table, set_nullable
+from linter.reader.tables import (
+    add_column,
+    add_constraints,
+    drop_column,
+    rename_column,
+    rename_table,
+    set_nullable,
+)
 
 
 def alter_table(state: ReplayState, alter: exp.Alter) -> bool:

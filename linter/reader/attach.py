@@ -89,7 +89,8 @@ def attach_config(state: ReplayState, dependencies: Mapping[str, Sequence[Depend
         table = state.table(key)
         for dependency in declared:
             if table is None:
-                _error(state, dependency.span, f"configured dependency names table {key}, which does not exist", key)
+                message = f"configured dependency names table {key}, which does not exist"
+                _error(state, dependency.span, message, key)
                 continue
             lhs = tuple(parse_column_name(c, dialect) for c in dependency.lhs)
             rhs = tuple(parse_column_name(c, dialect) for c in dependency.rhs)

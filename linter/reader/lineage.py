@@ -91,7 +91,8 @@ def _single_source(state: ReplayState, query: exp.Expression) -> tuple[Table, se
 
 def _is_star(projection: exp.Expression) -> bool:
     """True for ``*`` and ``t.*``."""
-    return isinstance(projection, exp.Star) or (isinstance(projection, exp.Column) and isinstance(projection.this, exp.Star))
+    inner = projection.this if isinstance(projection, exp.Column) else projection
+    return isinstance(inner, exp.Star)
 
 
 def _output_name(state: ReplayState, projection: exp.Expression) -> str:

@@ -34,12 +34,17 @@ def recover(state: ReplayState, text: str) -> bool:
     return words == ["ALTER", "TABLE"] and _rename_constraint(state, tokens)
 
 
+def _identifier(token: Token) -> exp.Identifier:
+    """The identifier a name token stands for (quoted when written in quotes)."""
+    return exp.Identifier(this=token.text, quoted=token.token_type == TokenType.IDENTIFIER)
+
+
 def _name(tokens: list[Token], start: int) -> tuple[exp.Table | None, int]:
     """A possibly qualified name starting at ``start``, and the index after it."""
     parts: list[exp.Identifier] = []
     i = start
     while i < len(tokens) and tokens[i].token_type in _NAME_TYPES:
-        parts.append(exp.Identifier(this=tokens[i].text, quoted=tokens[i].token_type == TokenType.IDENTIFIER))
+        parts.append(_identifier(tokens[i]))
         if i + 1 < len(tokens) and tokens[i + 1].token_type == TokenType.DOT:
             i += 2
         else:
@@ -64,8 +69,7 @@ def _rename_constraint(state: ReplayState, tokens: list[Token]) -> bool:
     old_token, new_token = tokens[i + 2], tokens[i + 4]
     if old_token.token_type not in _NAME_TYPES or new_token.token_type not in _NAME_TYPES:
         return False
-    old, new = (fold_column(exp.Identifier(this=t.text, quoted=t.token_type == TokenType.IDENTIFIER), state.dialect)
-                for t in (old_token, new_token))
+    old, new = (fold_column(_identifier(token), state.dialect) for token in (old_token, new_token))
     table = state.table(table_name(target, state.dialect))
     if table is None:
         if not if_exists:

@@ -78,7 +78,8 @@ def _guarded(state: ReplayState, rule: str, doing: str, step: Callable[..., Any]
         return step(*args)
     except Exception as error:
         severity = "error" if rule == "annotation-error" else "warning"
-        state.report(rule, severity, f"could not analyse: internal error while {doing} ({type(error).__name__}: {error})")
+        reason = f"{type(error).__name__}: {error}"
+        state.report(rule, severity, f"could not analyse: internal error while {doing} ({reason})")
         return None
 
 
