@@ -180,30 +180,32 @@ def _modify_column(state: ReplayState, table: Table, action: exp.ModifyColumn) -
     spec = column_spec(coldef, state.dialect)
     old = action.args.get("rename_from")
     current = _column(state, table, old if old is not None else coldef.this, "MODIFY")
-    if current is None:
+    if current is None or (current != spec.name and not _renamed(state, table, current, spec.name)):
         return
-    if current != spec.name:
-        rename_column(state, table, current, spec.name)
     primary = any(u.is_primary and spec.name in u.columns for u in table.uniques)
     nullable = spec.nullable is not False and not primary
     table.columns = [replace(c, type=spec.type, nullable=nullable) if c.name == spec.name else c
                      for c in table.columns]
     add_constraints(state, table, spec.constraints)
-    renamed = f" (was {current})" if current != spec.name else ""
-    state.event(table, "altered", f"redefined column {spec.name}{renamed}")
+    state.event(table, "altered", f"redefined column {spec.name}")
 
 
 def _rename_column(state: ReplayState, table: Table, source: exp.Expression, target: exp.Expression) -> None:
     """RENAME COLUMN old TO new."""
     old = _column(state, table, source, "RENAME")
-    if old is None:
-        return
-    new = fold_column(target.this if isinstance(target, exp.Column) else target, state.dialect)
+    if old is not None:
+        _renamed(state, table, old, fold_column(target.this if isinstance(target, exp.Column) else target,
+                                                state.dialect))
+
+
+def _renamed(state: ReplayState, table: Table, old: str, new: str) -> bool:
+    """Rename column ``old`` to ``new`` unless ``new`` is taken (a conflict); True when renamed."""
     if table.column(new) is not None:
-        state.conflict(f"RENAME COLUMN {old} TO {new}: {table.name} already has {new}", table.name)
-        return
+        state.conflict(f"renaming column {old} to {new}: {table.name} already has {new}", table.name)
+        return False
     rename_column(state, table, old, new)
     state.event(table, "altered", f"renamed column {old} to {new}")
+    return True
 
 
 def _rename_table(state: ReplayState, table: Table, action: exp.AlterRename) -> None:
