@@ -226,7 +226,7 @@ _NO_TABLE_OBJECTS = frozenset(
 _NO_TABLE_STATEMENTS = frozenset(
     {"GRANT", "REVOKE", "DENY", "DEALLOCATE", "PREPARE", "EXECUTE", "EXEC", "CALL", "SET", "DECLARE",
      "COMMENT", "ANALYZE", "VACUUM", "REINDEX", "LOCK", "PRINT", "USE", "SHOW", "SELECT", "DO",
-     "CLUSTER", "REFRESH", "NOTIFY", "LISTEN", "DISCARD", "CHECKPOINT", "EXPLAIN", "BEGIN", "END",
+     "CLUSTER", "REFRESH", "NOTIFY", "LISTEN", "DISCARD", "CHECKPOINT", "EXPLAIN", "END",
      "COMMIT", "ROLLBACK", "SAVEPOINT", "RELEASE", "START", "PRAGMA", "FLUSH", "OPTIMIZE"}
 )
 _NOT_BEFORE_STATEMENT = frozenset({"GRANT", "REVOKE", "DENY", ",", "TO", "ON"})
@@ -249,7 +249,7 @@ def _tokenize(reader: _Reader, start: int, end: int) -> list[Token]:
     position and the tokens before that point are kept.
     """
     chunk = reader.text[start:end]
-    tokenizer = reader.dialect.tokenizer()
+    tokenizer = _tokenizer(reader.dialect)
     try:
         tokens = tokenizer.tokenize(chunk)
         stop = scan_end = end
@@ -280,6 +280,24 @@ def _tokenize(reader: _Reader, start: int, end: int) -> list[Token]:
             token.end += start
     _collect_comments(reader, tokens, start, scan_end)
     return tokens
+
+
+class _TSQLTokenizer(TSQL.Tokenizer):
+    """sqlglot's T-SQL tokenizer, except that END does not swallow the text after it.
+
+    sqlglot lists END among T-SQL's command words, so after ``BEGIN ...; END`` it reads everything
+    up to the next ``;`` as one string: an ``IF ... BEGIN DROP TABLE t; END`` followed by
+    ``CREATE TABLE t (...)`` would hide the table.
+    """
+
+    COMMANDS = TSQL.Tokenizer.COMMANDS - {TokenType.END}
+
+
+def _tokenizer(dialect: Dialect):
+    """A tokenizer for the dialect (T-SQL's with END as a plain keyword)."""
+    if isinstance(dialect, TSQL):
+        return _TSQLTokenizer(dialect=dialect)
+    return dialect.tokenizer()
 
 
 def _place_command_text(tokenizer, chunk: str, tokens: list[Token]) -> None:
@@ -424,14 +442,39 @@ def _units(reader: _Reader) -> list[_Unit]:
     dialect = reader.dialect
     if isinstance(dialect, TSQL):
         return _go_batches(reader)
+    if isinstance(dialect, Postgres) and _MAYBE_META_LINE.search(reader.text):
+        units = []
+        for start, end in _outside_copy_data(reader.text):
+            units.extend(_cut_at_lines(_tokenize(reader, start, end), _psql_meta))
+        return units
     tokens = _tokenize(reader, 0, len(reader.text))
     if isinstance(dialect, Oracle):
         return _cut_at_lines(tokens, _sqlplus_line)
-    if isinstance(dialect, Postgres) and _MAYBE_META_LINE.search(reader.text):
-        return _cut_at_lines(tokens, _psql_meta)
     if isinstance(dialect, MySQL):
         return _mysql_units(reader, tokens)
     return [_Unit(tokens)]
+
+
+# psql's COPY ... FROM stdin reads data rows up to a line holding only '\.': they are not SQL (the
+# sqlglot tokenizer would choke on their quotes), so they are found by line, as psql finds them.
+_COPY_FROM_STDIN = re.compile(r"\bCOPY\b[^;]*?\bFROM\s+STDIN\b[^;]*;[^\n]*\n", re.IGNORECASE)
+_END_OF_DATA = re.compile(r"^\\\.[ \t]*\r?$", re.MULTILINE)
+
+
+def _outside_copy_data(text: str) -> list[tuple[int, int]]:
+    """The (start, end) regions of a psql script that are SQL, around COPY data rows."""
+    regions, start = [], 0
+    while True:
+        copy = _COPY_FROM_STDIN.search(text, start)
+        if copy is None:
+            break
+        finish = _END_OF_DATA.search(text, copy.end())
+        regions.append((start, copy.end()))
+        if finish is None:  # data to the end of the file
+            return regions
+        start = finish.end()
+    regions.append((start, len(text)))
+    return regions
 
 
 def _rest_of_line(tokens: Sequence[Token], i: int) -> int:
@@ -678,6 +721,11 @@ def _cannot_change_tables(tokens: Sequence[Token]) -> bool:
     head = _word(tokens[0])
     if head in ("CREATE", "ALTER", "DROP"):
         return _object_word(tokens, 0) in _NO_TABLE_OBJECTS
+    if head in ("BEGIN", "DECLARE"):  # a block runs now: it matters if it touches a table
+        return not any(
+            _word(token) in ("CREATE", "ALTER", "DROP") and _object_word(tokens, i) in ("TABLE", "INDEX")
+            for i, token in enumerate(tokens)
+        )
     return head in _NO_TABLE_STATEMENTS
 
 

@@ -282,3 +282,33 @@ def test_sqlglot_warnings_do_not_leak(caplog: pytest.LogCaptureFixture) -> None:
     with caplog.at_level(logging.WARNING):
         _split("CREATE FUNCTION f() RETURNS int AS $$ SELECT 1 $$ LANGUAGE sql;", "postgres")
     assert not [r for r in caplog.records if r.name.startswith("sqlglot")]
+
+
+def test_psql_copy_data_rows_are_not_sql() -> None:
+    text = (
+        "CREATE TABLE depots (code text PRIMARY KEY, city text);\n"
+        "COPY public.depots (code, city) FROM stdin;\n"
+        "N1\tUtrecht's north\n"
+        "-- not a comment; data\n"
+        "\\.\n"
+        "-- about riders\n"
+        "CREATE TABLE riders (id int);\n"
+    )
+    script = _split(text, "postgres")
+    assert [(s.expression.key, s.span.line) for s in script.statements] == [("create", 1), ("copy", 2), ("create", 7)]
+    assert not script.findings
+    assert [c.text for c in script.statements[2].comments] == [" about riders"]
+
+
+def test_tsql_block_then_create_without_go_keeps_the_table() -> None:
+    # sqlglot's T-SQL tokenizer would read the text after END up to the next ';' as one string.
+    text = "IF OBJECT_ID('dbo.vessels') IS NOT NULL\nBEGIN\n  DROP TABLE dbo.vessels;\nEND\nCREATE TABLE dbo.vessels (id INT PRIMARY KEY);\n"
+    script = _split(text, "tsql")
+    assert [(s.expression.key, s.span.line) for s in script.statements] == [("ifblock", 1), ("create", 5)]
+
+
+def test_a_block_sqlglot_cannot_read_is_an_error_when_it_touches_tables() -> None:
+    text = "BEGIN TRY\n  CREATE TABLE vessels (id INT);\nEND TRY\nBEGIN CATCH\n  PRINT 'x';\nEND CATCH;\nCREATE TABLE ports (id INT);"
+    script = _split(text, "tsql")
+    assert [(s.kind, s.span.line) for s in script.statements] == [("error", 1), ("ast", 7)]
+    assert [f.severity for f in script.findings] == ["error"]
