@@ -5,14 +5,20 @@
 >>> [piece.attrs for piece in result.pieces], result.lost
 ([6, 5], (FD(lhs=3, rhs=4),))
 
-A piece P with a cover G of its projected dependencies is split on a violating X -> A of G (X not
-a superkey of P) into X+ n P and X u (P - X+), both lossless since X determines the first; each
-part gets the projection of G onto it (``project``). Of the violating left sides of G (a minimal
-cover, in ``fd_order``) the one whose closure takes the most of P goes first, the earliest on
-ties: it splits off the largest part at once. The pieces come in the order of that recursion,
+A piece P is split on a violating X (X+ n P holds more than X, but not all of P) into X+ n P and
+X u (P - X+): lossless, since X determines the first. Closures in a piece are closures under F
+cut to the piece, so they are taken once under F and remembered. Violations are looked for first
+among the left sides of the minimal cover of F that lie in P (each X -> X+ n P holds on P); only
+when none is left is the projection of F onto P computed (``project``; for a piece closed under F
+it is the part of the cover inside it), and its left sides looked at. Without violation, P is a
+piece, with its keys and that projection.
+
+Of the violating left sides the one whose closure takes the most of P goes first (the earliest
+in ``minimal_cover`` order on ties), with attributes dropped from it while its closure in P stays
+the same: it splits off the largest part at once. Pieces come in the order of that recursion,
 first part first; a piece contained in another is dropped. ``lost`` lists the dependencies of the
 input's minimal cover that the pieces do not preserve. The dependencies must mention only
-attributes of r. A projection stopped by its bound leaves a sound but partial cover, and the
+attributes of r. A projection stopped by the bound of ``project`` is sound but partial, and the
 piece may then hide a violation.
 """
 from __future__ import annotations
@@ -21,42 +27,73 @@ from collections.abc import Sequence
 
 from .closure import ClosureIndex
 from .decomposition import Decomposition, Piece, drop_contained, make_piece
-from .fd import FD, require_within
+from .fd import FD, members, require_within
 from .minimal_cover import minimal_cover
-from .preserves_dependencies import preserves_dependencies
-from .project import project
+from .preserves_dependencies import not_preserved
+from .project import project_with
 
 
 def bcnf_decompose(r: int, fds: Sequence[tuple[int, int]]) -> Decomposition:
     """A lossless decomposition of r into pieces in BCNF, and the dependencies it loses."""
     require_within(r, fds)
     cover = minimal_cover(fds)
+    closures = _Closures(ClosureIndex(cover))
     pieces: list[Piece] = []
-    work: list[tuple[int, list[FD] | tuple[FD, ...]]] = [(r, cover)]
+    work = [r]
     while work:
-        attrs, piece_fds = work.pop()
-        index = ClosureIndex(piece_fds)
-        lhs = _chosen_violation(attrs, piece_fds, index)
+        attrs = work.pop()
+        lhs = _violation(attrs, cover, closures)
+        piece_fds: Sequence[FD] = ()
+        if lhs is None:
+            piece_fds = _projection(attrs, cover, closures)
+            lhs = _violation(attrs, piece_fds, closures)
         if lhs is None:
             pieces.append(make_piece(attrs, piece_fds))
             continue
-        determined = index.closure(lhs) & attrs
-        rest = lhs | (attrs & ~determined)
-        work.append((rest, project(piece_fds, rest).fds))
-        work.append((determined, project(piece_fds, determined).fds))
+        determined = closures.of(lhs) & attrs
+        work.append(lhs | (attrs & ~determined))
+        work.append(determined)
     kept = drop_contained([piece.attrs for piece in pieces])
     chosen = tuple(piece for piece in pieces if piece.attrs in kept)
-    return Decomposition(chosen, preserves_dependencies(cover, kept))
+    return Decomposition(chosen, not_preserved(cover, closures.index, kept))
 
 
-def _chosen_violation(
-    attrs: int, fds: Sequence[FD], index: ClosureIndex
-) -> int | None:
-    """The violating left side whose closure covers most of the piece; None when in BCNF."""
+class _Closures:
+    """Closures under F, remembered: many pieces ask for the same left sides."""
+
+    def __init__(self, index: ClosureIndex) -> None:
+        self.index = index
+        self._known: dict[int, int] = {}
+
+    def of(self, x: int) -> int:
+        """X+ under F."""
+        if x not in self._known:
+            self._known[x] = self.index.closure(x)
+        return self._known[x]
+
+
+def _projection(attrs: int, cover: list[FD], closures: _Closures) -> tuple[FD, ...]:
+    """A minimal cover of the dependencies on the piece."""
+    if closures.of(attrs) == attrs:
+        return tuple(fd for fd in cover if not fd.lhs & ~attrs)
+    return project_with(closures.index, attrs).fds
+
+
+def _violation(attrs: int, fds: Sequence[FD], closures: _Closures) -> int | None:
+    """The violating left side in the piece whose closure takes the most of it, reduced."""
     best = None
-    best_size = -1
+    best_size = 0
     for fd in fds:
-        determined = index.closure(fd.lhs) & attrs
-        if determined != attrs and determined.bit_count() > best_size:
-            best, best_size = fd.lhs, determined.bit_count()
+        if fd.lhs & ~attrs:
+            continue
+        determined = closures.of(fd.lhs) & attrs
+        size = determined.bit_count()
+        if determined != fd.lhs and determined != attrs and size > best_size:
+            best, best_size = fd.lhs, size
+    if best is None:
+        return None
+    target = closures.of(best) & attrs
+    for a in members(best):
+        if closures.of(best & ~a) & attrs == target:
+            best &= ~a
     return best

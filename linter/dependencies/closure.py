@@ -24,15 +24,19 @@ class ClosureIndex:
     """A set of dependencies prepared for many closure queries."""
 
     def __init__(self, fds: Iterable[tuple[int, int]]) -> None:
-        self.fds: list[FD] = [FD(lhs, rhs) for lhs, rhs in fds]
-        self._unmet: list[int] = [fd.lhs.bit_count() for fd in self.fds]
-        self._rhs: list[int] = [fd.rhs for fd in self.fds]
-        self._empty_lhs: list[int] = [i for i, fd in enumerate(self.fds) if not fd.lhs]
+        self.fds: list[tuple[int, int]] = list(fds)
+        self._unmet: list[int] = []
+        self._rhs: list[int] = []
+        self._empty_lhs: list[int] = []
         self._users: dict[int, list[int]] = {}
         self._all_rhs = 0
-        for i, fd in enumerate(self.fds):
-            self._all_rhs |= fd.rhs
-            for a in members(fd.lhs):
+        for i, (lhs, rhs) in enumerate(self.fds):
+            self._unmet.append(lhs.bit_count())
+            self._rhs.append(rhs)
+            self._all_rhs |= rhs
+            if not lhs:
+                self._empty_lhs.append(i)
+            for a in members(lhs):
                 self._users.setdefault(a, []).append(i)
 
     def closure(self, x: int, skip: Iterable[int] = ()) -> int:

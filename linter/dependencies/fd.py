@@ -7,7 +7,7 @@
 (1, 3)
 >>> sorted([0b11, 0b100, 0b1], key=set_order)
 [1, 4, 3]
->>> split_rhs([FD(0b1, 0b111), FD(0b1, 0b10)])
+>>> sorted(split_rhs([FD(0b1, 0b111), FD(0b1, 0b10)]))
 [FD(lhs=1, rhs=2), FD(lhs=1, rhs=4)]
 
 Attribute sets are plain ints: bit i stands for the i-th attribute of the relation. Sets are
@@ -51,9 +51,8 @@ def fd_order(fd: FD) -> tuple[tuple[int, tuple[int, ...]], tuple[int, ...]]:
 
 
 def split_rhs(fds: Iterable[tuple[int, int]]) -> list[FD]:
-    """Dependencies with one attribute on the right, trivial ones dropped, no repeats, sorted."""
-    single = {FD(lhs, a) for lhs, rhs in fds for a in members(rhs & ~lhs)}
-    return sorted(single, key=fd_order)
+    """Dependencies with one attribute on the right, trivial ones dropped, no repeats."""
+    return list({FD(lhs, a) for lhs, rhs in fds for a in members(rhs & ~lhs)})
 
 
 def attributes_of(fds: Iterable[tuple[int, int]]) -> int:

@@ -30,8 +30,13 @@ def minimal_cover(fds: Iterable[tuple[int, int]]) -> list[FD]:
 
 def canonical_cover(fds: Iterable[tuple[int, int]]) -> list[FD]:
     """The minimal cover with the right sides of equal left sides merged, sorted by left side."""
+    return merge_equal_lhs(minimal_cover(fds))
+
+
+def merge_equal_lhs(fds: Iterable[FD]) -> list[FD]:
+    """One dependency per left side, with the right sides united, in first-seen order."""
     merged: dict[int, int] = {}
-    for fd in minimal_cover(fds):
+    for fd in fds:
         merged[fd.lhs] = merged.get(fd.lhs, 0) | fd.rhs
     return [FD(lhs, rhs) for lhs, rhs in merged.items()]
 

@@ -25,19 +25,31 @@ def preserves_dependencies(
 ) -> tuple[FD, ...]:
     """The dependencies of the minimal cover of ``fds`` that the pieces do not preserve."""
     cover = minimal_cover(fds)
-    index = ClosureIndex(cover)
-    return tuple(fd for fd in cover if not _preserved(fd, index, pieces))
+    return not_preserved(cover, ClosureIndex(cover), pieces)
+
+
+def not_preserved(
+    fds: Sequence[FD], index: ClosureIndex, pieces: Sequence[int]
+) -> tuple[FD, ...]:
+    """The dependencies of ``fds`` (indexed, with their equivalents, in ``index``) not preserved."""
+    return tuple(fd for fd in fds if not _preserved(fd, index, pieces))
 
 
 def _preserved(fd: FD, index: ClosureIndex, pieces: Sequence[int]) -> bool:
     """Whether the projections onto the pieces together imply ``fd``."""
+    if any(not (fd.lhs | fd.rhs) & ~piece for piece in pieces):
+        return True  # it holds within one piece
     z = fd.lhs
-    while True:
-        grown = z
-        for piece in pieces:
-            grown |= index.closure(grown & piece) & piece
-        if not fd.rhs & ~grown:
-            return True
-        if grown == z:
-            return False
-        z = grown
+    seen = [-1] * len(pieces)  # Z n Ri at the last visit: no need to look again until it grows
+    grew = True
+    while grew:
+        grew = False
+        for i, piece in enumerate(pieces):
+            if z & piece == seen[i]:
+                continue
+            seen[i] = z & piece
+            gained = index.closure(z & piece) & piece & ~z
+            if gained:
+                z |= gained
+                grew = True
+    return not fd.rhs & ~z

@@ -20,19 +20,20 @@ from .candidate_keys import candidate_keys
 from .closure import ClosureIndex
 from .decomposition import Decomposition, drop_contained, make_piece
 from .fd import require_within
-from .minimal_cover import canonical_cover
-from .preserves_dependencies import preserves_dependencies
-from .project import project
+from .minimal_cover import merge_equal_lhs, minimal_cover
+from .preserves_dependencies import not_preserved
+from .project import project_with
 
 
 def synthesize_3nf(r: int, fds: Sequence[tuple[int, int]]) -> Decomposition:
     """A 3NF decomposition of r that is lossless and preserves every dependency."""
     require_within(r, fds)
-    cover = canonical_cover(fds)
+    minimal = minimal_cover(fds)
+    cover = merge_equal_lhs(minimal)
     index = ClosureIndex(cover)
     schemas = [fd.lhs | fd.rhs for fd in cover]
     if not any(index.implies(schema, r) for schema in schemas):
         schemas.append(candidate_keys(r, cover, max_keys=1).keys[0])
     kept = drop_contained(schemas)
-    pieces = tuple(make_piece(schema, project(cover, schema).fds) for schema in kept)
-    return Decomposition(pieces, preserves_dependencies(cover, kept))
+    pieces = tuple(make_piece(schema, project_with(index, schema).fds) for schema in kept)
+    return Decomposition(pieces, not_preserved(minimal, index, kept))
