@@ -98,45 +98,46 @@ def _forms(forms: Mapping[str, int]) -> str:
     legend = "".join(
         f'<li><span class="swatch nf-{form}"></span>{form}: <b>{forms[form]}</b></li>' for form in FORMS
     )
-    return f'<div class="panel"><h3>Tables by normal form</h3><div class="stack">{bar}</div><ul class="legend">{legend}</ul></div>'
+    return _panel("Tables by normal form", f'<div class="stack">{bar}</div><ul class="legend">{legend}</ul>', "")
+
+
+def _panel(title: str, body: str, empty: str, tag: str = "div", classes: str = "panel") -> str:
+    """A titled panel holding ``body``, or the ``empty`` note when there is nothing to show."""
+    content = body or f'<p class="empty">{empty}</p>'
+    return f'<{tag} class="{classes}"><h3>{title}</h3>{content}</{tag}>'
 
 
 def _rules(by_rule: Sequence[Record]) -> str:
     """Findings counted by rule, with a bar for each."""
-    if not by_rule:
-        return '<div class="panel"><h3>Findings by rule</h3><p class="empty">No findings.</p></div>'
-    most = max(item["count"] for item in by_rule)
+    most = max((item["count"] for item in by_rule), default=1)
     rows = "".join(
         f"<tr><td><code>{e(item['rule'])}</code></td><td>{e(item['severity'])}</td><td class=\"n\">{item['count']}</td>"
-        f'<td style="width:40%"><div class="bar" style="width:{100 * item["count"] / most:.1f}%"></div></td></tr>'
+        f'<td class="barcell"><div class="bar" style="width:{100 * item["count"] / most:.1f}%"></div></td></tr>'
         for item in by_rule
     )
-    return f'<div class="panel"><h3>Findings by rule</h3><table><tbody>{rows}</tbody></table></div>'
+    return _panel("Findings by rule", rows and f"<table><tbody>{rows}</tbody></table>", "No findings.")
 
 
 def _worst(worst: Sequence[Record], anchors: Mapping[str, str]) -> str:
     """The tables furthest from the target, most findings first."""
-    if not worst:
-        return '<div class="panel"><h3>Worst tables</h3><p class="empty">Every table meets the target.</p></div>'
     rows = "".join(
         f'<tr><td><a href="#{anchors[item["name"]]}">{e(item["name"])}</a></td><td>{nf_badge(item["normal_form"])}</td>'
         f'<td class="n">{item["findings"]}</td></tr>'
         for item in worst
     )
     head = '<thead><tr><th>Table</th><th>Form</th><th class="n">Findings</th></tr></thead>'
-    return f'<div class="panel"><h3>Worst tables</h3><table>{head}<tbody>{rows}</tbody></table></div>'
+    return _panel("Worst tables", rows and f"<table>{head}<tbody>{rows}</tbody></table>", "Every table meets the target.")
 
 
 def _index(tables: Sequence[Record], anchors: Mapping[str, str]) -> str:
     """Every table, linked, with a swatch of its normal form."""
-    if not tables:
-        return '<div class="panel nav"><h3>Tables</h3><p class="empty">No tables were found.</p></div>'
     items = "".join(
         f'<li><span class="swatch nf-{e(t["normal_form"])}" title="{e(t["normal_form"])}"></span>'
         f'<a href="#{anchors[t["name"]]}">{e(t["name"])}</a></li>'
         for t in tables
     )
-    return f'<nav class="panel nav"><h3>Tables</h3><ul class="index">{items}</ul></nav>'
+    body = items and f'<ul class="index">{items}</ul>'
+    return _panel("Tables", body, "No tables were found.", tag="nav", classes="panel nav")
 
 
 def _others(findings: Sequence[Record]) -> str:

@@ -67,6 +67,9 @@ table { border-collapse: collapse; width: 100%; font-size: .92rem; }
 th, td { text-align: left; padding: 5px 10px 5px 0; border-bottom: 1px solid var(--rule); vertical-align: top; }
 th { font-weight: 600; color: var(--muted); font-size: .8rem; text-transform: uppercase; letter-spacing: .05em; }
 td.n { text-align: right; font-variant-numeric: tabular-nums; width: 4em; }
+td.barcell { width: 40%; vertical-align: middle; }
+.columns2 > .panel { margin: 0; }
+div.columns2:has(> .panel) { margin: 18px 0; }
 .bar { height: 8px; border-radius: 4px; background: var(--accent); min-width: 2px; }
 .index { columns: 4 180px; column-gap: 24px; padding: 0; margin: 0; list-style: none; font-size: .9rem; }
 .index li { break-inside: avoid; padding: 1px 0; }
