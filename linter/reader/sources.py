@@ -21,11 +21,15 @@ depth. SQL files with a dialect suffix after ``.sql`` (Synapse's ``.sql.postgres
 (True, True)
 >>> glob_match("delta/*.sql", "delta/54/x.sql")
 False
+
+Folders whose name starts with a dot are not entered. Synapse keeps a base schema in
+``full_schemas/<N>/`` and later changes in ``delta/<N>/``: give the two folders in that order.
 """
 from __future__ import annotations
 
 import os
 import re
+import stat
 from collections.abc import Iterable, Sequence
 from dataclasses import dataclass, field
 from functools import lru_cache
@@ -176,12 +180,14 @@ def read_source(path: str) -> Source:
     """
     shown = _display(Path(path))
     try:
-        size = os.path.getsize(path)
-        if os.path.isdir(path):
+        status = os.stat(path)
+        if stat.S_ISDIR(status.st_mode):
             return Source(shown, "", [_file_problem(shown, "is a folder, not a file", "error")], True)
-        if size > MAX_FILE_BYTES:
+        if not stat.S_ISREG(status.st_mode):
+            return Source(shown, "", [_file_problem(shown, "is not a regular file; not read", "error")], True)
+        if status.st_size > MAX_FILE_BYTES:
             message = (
-                f"file is {size / 1048576:.1f} MB, over the {MAX_FILE_BYTES // 1048576} MB limit "
+                f"file is {status.st_size / 1048576:.1f} MB, over the {MAX_FILE_BYTES // 1048576} MB limit "
                 "for a schema file; not read"
             )
             return Source(shown, "", [_file_problem(shown, message)], True)

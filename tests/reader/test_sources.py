@@ -179,3 +179,11 @@ def test_permission_denied_is_a_finding(tmp_path: Path, monkeypatch: pytest.Monk
 
 def test_natural_key_ties_break_on_the_text() -> None:
     assert sorted(["01_a.sql", "1_a.sql"], key=natural_key) == ["01_a.sql", "1_a.sql"]
+
+
+@pytest.mark.skipif(not hasattr(os, "mkfifo"), reason="named pipes are a POSIX feature")
+def test_a_named_pipe_is_reported_not_read(tmp_path: Path) -> None:
+    pipe = tmp_path / "pipe.sql"
+    os.mkfifo(pipe)
+    source = read_source(str(pipe))  # would block forever if opened
+    assert source.skipped and "not a regular file" in source.problems[0].message
