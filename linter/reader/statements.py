@@ -111,11 +111,19 @@ class Comment:
 class Statement:
     """One statement of a file, parsed or not.
 
-    ``kind`` is ``"ast"`` (a real expression tree), ``"opaque"`` (an ``exp.Command`` for DDL the
-    linter needs: CREATE TABLE, CREATE UNIQUE INDEX, ALTER TABLE ADD/DROP/RENAME), ``"error"``
-    (could not be parsed: ``expression`` is None, ``problem`` says why), ``"unparsed"`` (the same
-    for a statement that cannot change tables: function, trigger, view, grant ...), ``"command"`` (another opaque statement:
-    functions, triggers, grants ...) or ``"fragment"`` (a bare expression left by a body split).
+    ``kind`` is one of:
+
+    - ``"ast"``: a real expression tree;
+    - ``"opaque"``: an ``exp.Command`` for DDL the linter needs (CREATE TABLE, CREATE UNIQUE INDEX,
+      ALTER TABLE ... ADD/DROP/RENAME, MySQL RENAME TABLE), so ``opaque`` is True;
+    - ``"error"``: could not be parsed; ``expression`` is None and ``problem`` says why;
+    - ``"unparsed"``: the same for a statement that cannot change a table (function, trigger,
+      view, grant ...), reported as a note;
+    - ``"command"``: any other ``exp.Command`` (functions, triggers, OWNER TO ...);
+    - ``"fragment"``: a bare expression, left over from a body cut at ``;``.
+
+    ``text`` runs from the first token to the last one before the ``;``; ``end`` is the offset
+    after the ``;``. Node positions (``meta`` start/end) are offsets in the whole file.
     """
 
     expression: exp.Expression | None
@@ -162,7 +170,7 @@ class Script:
     findings: list[Finding] = field(default_factory=list)
 
     def count(self, kind: str) -> int:
-        """How many statements of ``kind`` (ast, opaque, error, command, fragment) were read."""
+        """How many statements of one ``kind`` (see ``Statement``) were read."""
         return sum(1 for s in (*self.statements, *self.skipped) if s.kind == kind)
 
 
@@ -192,10 +200,6 @@ class _Reader:
     comments: list[Comment] = field(default_factory=list)
     findings: list[Finding] = field(default_factory=list)
 
-    @property
-    def path(self) -> str:
-        return self.lines.path
-
     def finding(self, rule: str, severity: str, start: int, end: int, message: str) -> None:
         """Record a finding over ``text[start:end]``."""
         self.findings.append(Finding(rule, severity, self.lines.span(start, end), message))
@@ -218,13 +222,13 @@ _STATEMENT_OBJECTS = frozenset(
 # Statements that cannot change a table, a column or a key: when sqlglot cannot parse one, the
 # reader notes it and goes on (a MySQL procedure or a DB2 trigger is no error of the schema).
 _NO_TABLE_OBJECTS = frozenset(
-    {"FUNCTION", "PROCEDURE", "PROC", "TRIGGER", "VIEW", "MATERIALIZED", "TYPE", "EVENT", "PACKAGE",
+    {"FUNCTION", "PROCEDURE", "PROC", "TRIGGER", "VIEW", "TYPE", "EVENT", "PACKAGE",
      "DOMAIN", "RULE", "EXTENSION", "SEQUENCE", "AGGREGATE", "OPERATOR", "POLICY", "STATISTICS",
      "PUBLICATION", "SUBSCRIPTION", "ROLE", "USER", "LANGUAGE", "SERVER", "COLLATION", "CAST",
      "SYNONYM", "LIBRARY", "DATABASE"}
 )
 _NO_TABLE_STATEMENTS = frozenset(
-    {"GRANT", "REVOKE", "DENY", "DEALLOCATE", "PREPARE", "EXECUTE", "EXEC", "CALL", "SET", "DECLARE",
+    {"GRANT", "REVOKE", "DENY", "DEALLOCATE", "PREPARE", "EXECUTE", "EXEC", "CALL", "SET",
      "COMMENT", "ANALYZE", "VACUUM", "REINDEX", "LOCK", "PRINT", "USE", "SHOW", "SELECT", "DO",
      "CLUSTER", "REFRESH", "NOTIFY", "LISTEN", "DISCARD", "CHECKPOINT", "EXPLAIN", "END",
      "COMMIT", "ROLLBACK", "SAVEPOINT", "RELEASE", "START", "PRAGMA", "FLUSH", "OPTIMIZE"}
