@@ -173,7 +173,9 @@ def _decomposition(analysis: TableAnalysis) -> Data:
              "keys": [list(names.to_names(key)) for key in piece.keys]}
             for name, piece in zip(analysis.piece_names(decomposition), decomposition.pieces)
         ],
-        "lost": [{"lhs": list(names.to_names(fd.lhs)), "rhs": list(names.to_names(fd.rhs))} for fd in decomposition.lost],
+        "lost": [
+            {"lhs": list(names.to_names(fd.lhs)), "rhs": list(names.to_names(fd.rhs))} for fd in decomposition.lost
+        ],
         "caution": CAUTION,
     }
 

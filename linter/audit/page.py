@@ -66,8 +66,9 @@ def render_html(data: Mapping[str, Any]) -> str:
 def _relative(value: Any, base: str) -> Any:
     """A copy of the data with each ``path`` inside the folder ``base`` written relative to it."""
     if isinstance(value, Mapping):
+        inside = base + "/"
         return {
-            key: item[len(base) + 1:] if key == "path" and base and str(item).startswith(base + "/") else _relative(item, base)
+            key: item[len(inside):] if key == "path" and base and str(item).startswith(inside) else _relative(item, base)
             for key, item in value.items()
         }
     if isinstance(value, list):
@@ -83,7 +84,9 @@ def _cards(summary: Record, target: str) -> str:
         (summary["findings"], "findings"),
         (summary["files"], "files read"),
     ]
-    items = "".join(f'<div class="card"><div class="num">{e(n)}</div><div class="what">{e(w)}</div></div>' for n, w in cards)
+    items = "".join(
+        f'<div class="card"><div class="num">{e(n)}</div><div class="what">{e(w)}</div></div>' for n, w in cards
+    )
     return f'<div class="cards" id="summary">{items}</div>'
 
 
@@ -126,7 +129,8 @@ def _worst(worst: Sequence[Record], anchors: Mapping[str, str]) -> str:
         for item in worst
     )
     head = '<thead><tr><th>Table</th><th>Form</th><th class="n">Findings</th></tr></thead>'
-    return _panel("Worst tables", rows and f"<table>{head}<tbody>{rows}</tbody></table>", "Every table meets the target.")
+    body = rows and f"<table>{head}<tbody>{rows}</tbody></table>"
+    return _panel("Worst tables", body, "Every table meets the target.")
 
 
 def _index(tables: Sequence[Record], anchors: Mapping[str, str]) -> str:

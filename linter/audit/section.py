@@ -134,7 +134,9 @@ def _diagram(record: Record) -> str:
         title=f"Dependency diagram of {record['name']}",
     )
     kinds = {arrow.kind for arrow in arrows}
-    legend = "".join(f'<li><span class="line {kind}-line"></span>{text}</li>' for kind, text in _LEGEND if kind in kinds)
+    legend = "".join(
+        f'<li><span class="line {kind}-line"></span>{text}</li>' for kind, text in _LEGEND if kind in kinds
+    )
     legend += "<li><u>underlined</u>: primary key \u00b7 <b>bold</b>: part of a candidate key</li>"
     return f'<div class="diagram">{svg}</div><ul class="legend">{legend}</ul>'
 
@@ -148,7 +150,8 @@ def _dependencies(dependencies: Sequence[Record], everything: Sequence[str]) -> 
         rest = len(everything) - len(d["lhs"])
         whole = len(d["rhs"]) == rest and rest > 3
         rhs = f"every other column ({rest})" if whole else names(d["rhs"])
-        items.append(f"<li>{names(d['lhs'])} \u2192 {rhs}<br><span class=\"from\">{e(d['source'])}</span> {where(d)}</li>")
+        origin = f"<span class=\"from\">{e(d['source'])}</span> {where(d)}"
+        items.append(f"<li>{names(d['lhs'])} \u2192 {rhs}<br>{origin}</li>")
     return f'<ul class="deps">{"".join(items)}</ul>'
 
 

@@ -93,7 +93,8 @@ def test_screenshot(lemmy_audit, tmp_path: Path):
 def test_drawn_layout(lemmy_audit, tmp_path: Path):
     page, data = lemmy_audit
     measured_page = tmp_path / "measured.html"
-    measured_page.write_text(page.read_text(encoding="utf-8").replace("</body>", _MEASURE + "</body>"), encoding="utf-8")
+    instrumented = page.read_text(encoding="utf-8").replace("</body>", _MEASURE + "</body>")
+    measured_page.write_text(instrumented, encoding="utf-8")
     dom, console = load(measured_page, tmp_path / "profile", "--dump-dom")
     assert console == []
     found = re.search(r'<pre id="measured">(.*?)</pre>', dom, re.DOTALL)

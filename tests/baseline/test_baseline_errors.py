@@ -21,7 +21,8 @@ FOREIGN = {
     "a newer format": ("normguard-baseline: 2\nfindings: []\n", "format version 2"),
     "findings not a list": ("normguard-baseline: 1\nfindings: many\n", "`findings` must be a list"),
     "entry without fingerprint": (
-        "normguard-baseline: 1\nfindings:\n  - rule: missing-key\n    path: a.sql\n", "entry 1 of `findings` has no `fingerprint`"
+        "normguard-baseline: 1\nfindings:\n  - rule: missing-key\n    path: a.sql\n",
+        "entry 1 of `findings` has no `fingerprint`",
     ),
     "broken YAML": ("normguard-baseline: 1\nfindings: [\n  {rule: x\n", "not valid YAML"),
     "a python object tag": ("normguard-baseline: !!python/object/apply:os.getcwd []\n", "not valid YAML"),

@@ -5,6 +5,7 @@ reported. A violation is fixed: it is reported as fixed, and ``--prune`` drops i
 """
 from __future__ import annotations
 
+import json
 import re
 from pathlib import Path
 
@@ -81,10 +82,8 @@ def test_fixed_entry_is_reported_then_pruned_alone(library, runner):
     before = _take_baseline(runner)
     text_before = Path(BASELINE).read_text(encoding="utf-8")
     loans = library / "003_loans.sql"
-    loans.write_text(
-        loans.read_text(encoding="utf-8").replace("due_on    date", "due_on    date,\n    PRIMARY KEY (tag_no, lent_on)"),
-        encoding="utf-8",
-    )
+    keyed = loans.read_text(encoding="utf-8").replace("due_on    date", "due_on    date,\n    PRIMARY KEY (tag_no, lent_on)")
+    loans.write_text(keyed, encoding="utf-8")
     outcome = runner.invoke(main, ["check", "--baseline", BASELINE, "migrations"])
     assert outcome.exit_code == 0, outcome.output
     assert _finding_lines(outcome.stdout) == []
@@ -137,3 +136,15 @@ def test_rerecording_one_file_keeps_the_entries_of_the_others(library, runner):
     assert outcome.exit_code == 0, outcome.output
     assert "kept 2 entries for files not read this time" in outcome.stderr
     assert sorted(e["rule"] for e in _entries()) == ["missing-key", "transitive-dependency"]
+
+
+def test_machine_formats_keep_stdout_clean(library, runner):
+    """With --format json the report stays pure JSON; the baseline notes go to stderr."""
+    _take_baseline(runner)
+    loans = library / "003_loans.sql"
+    loans.write_text(loans.read_text(encoding="utf-8").replace("due_on    date", "due_on    date PRIMARY KEY"),
+                     encoding="utf-8")
+    outcome = runner.invoke(main, ["check", "--baseline", BASELINE, "--format", "json", "migrations"])
+    assert outcome.exit_code == 0, outcome.output
+    assert json.loads(outcome.stdout)["findings"] == []
+    assert "migrations/003_loans.sql: fixed since the baseline (loan)" in outcome.stderr

@@ -32,7 +32,8 @@ def _states_log(library, runner) -> dict:
     loans.write_text(loans.read_text(encoding="utf-8").replace(
         "due_on    date", "due_on    date,\n    PRIMARY KEY (tag_no, lent_on)"), encoding="utf-8")
     (library / "004_workshops.sql").write_text("CREATE TABLE workshop_slot (room text);\n", encoding="utf-8")
-    outcome = runner.invoke(main, ["check", "--baseline", ".normguard-baseline.yaml", "--format", "sarif", "migrations"])
+    arguments = ["check", "--baseline", ".normguard-baseline.yaml", "--format", "sarif", "migrations"]
+    outcome = runner.invoke(main, arguments)
     assert outcome.exit_code == 1, outcome.output
     return json.loads(outcome.stdout)
 
