@@ -1,7 +1,9 @@
 """The pre-commit hook for real: a scratch git repository, two migrations, this checkout as the hook.
 
-pre-commit installs this checkout into an isolated environment (``pip install`` through the
-machine's package index) and runs ``normguard check`` on the staged ``.sql`` files. The facts relied
+The hook repository is a snapshot of this working tree (tracked and untracked, not ignored files)
+committed into a scratch repository, so the test runs the code as it is on disk. pre-commit installs
+it into an isolated environment (``pip install`` through the machine's package index) and runs
+``normguard check`` on the staged ``.sql`` files. The facts relied
 on come from pre-commit's documentation and source (FORMATS.md §4: ``try-repo`` uses the hook
 repository's HEAD plus its uncommitted tracked edits; without ``--files`` only staged files are
 checked; ``types: [sql]`` matches the ``.sql`` extension).
@@ -55,13 +57,27 @@ def _tool(name: str) -> str:
 
 @pytest.fixture(scope="module")
 def tools() -> tuple[str, str]:
-    """git and pre-commit, and this checkout as a git repository with the hook manifest committed."""
-    git, pre_commit = _tool("git"), _tool("pre-commit")
-    tracked = subprocess.run([git, "-C", str(ROOT), "ls-files", ".pre-commit-hooks.yaml"],
-                             capture_output=True, text=True)
-    if tracked.returncode != 0 or not tracked.stdout.strip():
-        pytest.skip("this checkout is not a git repository with .pre-commit-hooks.yaml committed")
-    return git, pre_commit
+    """git and pre-commit."""
+    return _tool("git"), _tool("pre-commit")
+
+
+@pytest.fixture(scope="module")
+def hook_repo(tools: tuple[str, str], env: dict[str, str], tmp_path_factory: pytest.TempPathFactory) -> Path:
+    """This working tree as it is on disk, committed into a scratch repository (the hook's source)."""
+    git = tools[0]
+    listing = ["ls-files", "-z", "--cached", "--others", "--exclude-standard"]
+    listed = subprocess.run([git, "-C", str(ROOT), *listing], capture_output=True, text=True)
+    if listed.returncode != 0:
+        pytest.skip("this checkout is not a git repository, so its files cannot be listed for the hook")
+    snapshot = tmp_path_factory.mktemp("hook-repo")
+    for name in filter(None, listed.stdout.split("\0")):
+        source = ROOT / name
+        if source.is_file():
+            (snapshot / name).parent.mkdir(parents=True, exist_ok=True)
+            shutil.copy2(source, snapshot / name)
+    for command in (["init", "-q"], ["add", "-A"], ["commit", "-q", "--no-verify", "-m", "snapshot"]):
+        subprocess.run([git, *command], cwd=snapshot, env=env, check=True, capture_output=True)
+    return snapshot
 
 
 @pytest.fixture(scope="module")
@@ -78,15 +94,16 @@ def env(tmp_path_factory: pytest.TempPathFactory) -> dict[str, str]:
 
 
 @pytest.fixture
-def repo(tmp_path: Path, tools: tuple[str, str], env: dict[str, str]) -> Path:
+def repo(tmp_path: Path, tools: tuple[str, str], env: dict[str, str], hook_repo: Path) -> Path:
     """A git repository with settings, two committed migrations and a pre-commit config."""
     git = tools[0]
     (tmp_path / "db").mkdir()
     (tmp_path / ".normguard.yaml").write_text(SETTINGS, encoding="utf-8")
     (tmp_path / "db" / "001_depots.sql").write_text(DEPOTS, encoding="utf-8")
     (tmp_path / "db" / "002_scans.sql").write_text(SCANS, encoding="utf-8")
-    head = subprocess.run([git, "-C", str(ROOT), "rev-parse", "HEAD"], capture_output=True, text=True, check=True)
-    config = (f"repos:\n-   repo: {ROOT.as_posix()}\n    rev: {head.stdout.strip()}\n"
+    head = subprocess.run([git, "-C", str(hook_repo), "rev-parse", "HEAD"],
+                          capture_output=True, text=True, check=True)
+    config = (f"repos:\n-   repo: {hook_repo.as_posix()}\n    rev: {head.stdout.strip()}\n"
               "    hooks:\n    -   id: normguard\n")
     (tmp_path / ".pre-commit-config.yaml").write_text(config, encoding="utf-8")
     for command in (["init", "-q"], ["add", "."], ["commit", "-q", "--no-verify", "-m", "depots and scans"]):
@@ -94,17 +111,17 @@ def repo(tmp_path: Path, tools: tuple[str, str], env: dict[str, str]) -> Path:
     return tmp_path
 
 
-def _stage_and_try(repo: Path, tools: tuple[str, str], env: dict[str, str], name: str, text: str):
-    """Stage one new migration and run the hook from this checkout on the staged files."""
+def _stage_and_try(repo: Path, tools: tuple[str, str], env: dict[str, str], hook: Path, name: str, text: str):
+    """Stage one new migration and run the hook with ``try-repo`` on the staged files."""
     git, pre_commit = tools
     (repo / "db" / name).write_text(text, encoding="utf-8")
     subprocess.run([git, "add", f"db/{name}"], cwd=repo, env=env, check=True)
-    return subprocess.run([pre_commit, "try-repo", str(ROOT), "normguard", "--verbose"],
+    return subprocess.run([pre_commit, "try-repo", str(hook), "normguard", "--verbose"],
                           cwd=repo, env=env, capture_output=True, text=True, timeout=1200)
 
 
-def test_a_migration_breaking_bcnf_is_blocked(repo, tools, env):
-    done = _stage_and_try(repo, tools, env, "003_dispatch.sql", DISPATCH)
+def test_a_migration_breaking_bcnf_is_blocked(repo, tools, env, hook_repo):
+    done = _stage_and_try(repo, tools, env, hook_repo, "003_dispatch.sql", DISPATCH)
     output = done.stdout + done.stderr
     assert done.returncode == 1, output
     assert "db/003_dispatch.sql:1:4: warning: dispatcher -> zone" in output
@@ -112,15 +129,15 @@ def test_a_migration_breaking_bcnf_is_blocked(repo, tools, env):
     assert "002_scans.sql" not in output  # replayed for context, not reported: it is not staged
 
 
-def test_a_clean_migration_passes(repo, tools, env):
-    done = _stage_and_try(repo, tools, env, "003_riders.sql", RIDERS)
+def test_a_clean_migration_passes(repo, tools, env, hook_repo):
+    done = _stage_and_try(repo, tools, env, hook_repo, "003_riders.sql", RIDERS)
     output = done.stdout + done.stderr
     assert done.returncode == 0, output
     assert "normguard: 0 errors, 0 warnings, 0 notes" in output
 
 
 def test_git_commit_runs_the_installed_hook(repo, tools, env):
-    """The committed hook (this checkout at HEAD) installed as the repository's git hook."""
+    """The hook installed as the repository's git hook, from the config's repo and rev."""
     git, pre_commit = tools
     subprocess.run([pre_commit, "install"], cwd=repo, env=env, check=True, capture_output=True)
 
