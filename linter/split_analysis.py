@@ -98,7 +98,7 @@ def _identity(split: Split) -> tuple:
     """Everything a split's analysis depends on, as nested tuples."""
     pieces = tuple((p.table, p.columns, tuple(sorted(p.lineage.items(), key=str))) for p in split.pieces)
     return (split.original, split.original_columns, split.original_keys,
-            split.original_dependencies, pieces)
+            split.original_dependencies, pieces, split.span, split.how)
 
 
 @lru_cache(maxsize=256)

@@ -30,8 +30,9 @@ def check(context: Context) -> Iterator[Finding]:
     """One finding per left side of the cover dependencies a recorded split does not preserve."""
     for split in context.catalog.splits:
         analysis = split_analysis(split)
-        if analysis.undecided:
+        if analysis.undecided or not analysis.lost:
             continue
+        proposal = _proposal(analysis)
         for fd in _merged(analysis.lost):
             names = analysis.attrs
             yield Finding(
@@ -43,7 +44,7 @@ def check(context: Context) -> Iterator[Finding]:
                 " so checking it needs a join on every write",
                 split.original,
                 (names.to_names(fd.lhs), names.to_names(fd.rhs)),
-                _explanation(analysis, fd),
+                _explanation(analysis, fd) + proposal + caveats(analysis),
             )
 
 
@@ -56,21 +57,21 @@ def _merged(lost: tuple[FD, ...]) -> list[FD]:
 
 
 def _explanation(analysis: SplitAnalysis, fd: FD) -> list[str]:
-    """Where each column went, how to enforce it still, and a 3NF split that keeps every dependency."""
-    names = analysis.attrs
-    placed = "; ".join(f"{names.format(a)} went to {listing(analysis.piece_names(a))}"
-                       for a in members(fd.lhs | fd.rhs))
-    together = names.format(fd.lhs | fd.rhs)
-    lines = [
-        placed,
+    """Where each column of the dependency went, and how to enforce it still."""
+    names, pieces = analysis.attrs, listing(analysis.piece_names(fd.lhs | fd.rhs))
+    return [
+        "; ".join(f"{names.format(a)} went to {listing(analysis.piece_names(a))}" for a in members(fd.lhs | fd.rhs)),
         "the dependencies the pieces enforce on their own do not imply it either",
-        f"enforce it with a trigger or an assertion that joins {listing(analysis.piece_names(fd.lhs | fd.rhs))},"
-        f" or keep {together} together in one table",
+        f"enforce it with a trigger or an assertion that joins {pieces},"
+        f" or keep {names.format(fd.lhs | fd.rhs)} together in one table",
     ]
+
+
+def _proposal(analysis: SplitAnalysis) -> list[str]:
+    """A lossless 3NF synthesis of the columns the pieces carry: it keeps every dependency in a table."""
     proposal = analyse(carried_table(analysis), "3nf")
-    lines.append("a lossless, dependency-preserving 3NF design of the same columns:")
-    lines += [f"  {line}" for line in proposal.describe_decomposition(proposal.synthesis)]
-    return lines + caveats(analysis)
+    return ["a lossless, dependency-preserving 3NF design of the same columns:",
+            *(f"  {line}" for line in proposal.describe_decomposition(proposal.synthesis))]
 
 
 RULE = Rule(ID, "warning", "After a split, a dependency of the original spans tables and needs a join to check.",

@@ -6,6 +6,9 @@ from pathlib import Path
 import pytest
 from split_support import FIXTURES, ROOT, split_findings
 
+from linter.config import Config
+from linter.engine import run
+
 CASES = sorted(p.name for p in (ROOT / FIXTURES).iterdir() if p.is_dir())
 
 # case -> [(rule, file, line, dependency or None, parts of the message)]
@@ -123,3 +126,23 @@ def test_split_over_two_files_is_reported_only_with_both_files(check) -> None:
         assert split_findings(check(f"{case}/{name}")) == []
     assert split_findings(check(f"{case}/{files[0]}", f"{case}/{files[1]}")) == []
     assert [f.rule for f in split_findings(check(case))] == ["lossy-split", "unenforceable-dependency"]
+
+
+def test_allow_on_a_shrunk_original_moves_its_findings_to_suppressed(tmp_path: Path, monkeypatch) -> None:
+    """The original still exists when the split only dropped columns, so its allow annotation applies."""
+    monkeypatch.chdir(tmp_path)
+    (tmp_path / "001_couriers.sql").write_text(
+        "CREATE TABLE couriers (\n"
+        "    courier_id integer PRIMARY KEY,\n"
+        "    depot text NOT NULL,\n"
+        "    city text NOT NULL\n"
+        "    -- normguard: fd depot -> city\n"
+        "    -- normguard: allow unenforceable-dependency: a trigger on courier_cities checks it\n"
+        ");\n", encoding="utf-8")
+    (tmp_path / "002_cities.sql").write_text(
+        "CREATE TABLE courier_cities AS SELECT courier_id, city FROM couriers;\n"
+        "ALTER TABLE couriers DROP COLUMN city;\n", encoding="utf-8")
+    result = run(Config(paths=(".",)))
+    assert split_findings(result) == []
+    assert [(f.rule, f.dependency) for f in result.suppressed] == [
+        ("unenforceable-dependency", (("depot",), ("city",)))]
