@@ -47,7 +47,7 @@ def split_section(catalog: Catalog, table: str) -> list[str]:
 def split_lines(split: Split) -> list[str]:
     """Everything about one split, as the ``explain`` command prints it."""
     analysis = split_analysis(split)
-    pieces = listing(split.pieces[i].table for i in analysis.carrying)
+    pieces = listing(piece.table for piece in split.pieces)
     lines = [f"split of {split.original} into {pieces} ({_HOW[split.how]}, {split.span.gnu()})"]
     lines += [f"  {_piece_line(split, i)}" for i in range(len(split.pieces))]
     given = "; ".join(f"{analysis.attrs.format_fd(g.fd)} ({g.origin})" for g in analysis.given) or "none"
