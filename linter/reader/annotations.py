@@ -18,8 +18,9 @@ without the colon, is an annotation, and one that does not follow the grammar ex
 
 >>> from linter.model import Span
 >>> note = Comment(" normguard: fd couriers: Depot -> city", Span("a.sql", 3, 1, 3, 41))
->>> parse_annotation(note, "postgres")
-FdAnnotation(table='couriers', lhs=('depot',), rhs=('city',), span=Span(path='a.sql', line=3, column=4, end_line=3, end_column=41), table_written='couriers', lhs_written=('Depot',), rhs_written=('city',))
+>>> fd = parse_annotation(note, "postgres")
+>>> fd.table, fd.lhs, fd.rhs, fd.lhs_written, (fd.span.line, fd.span.column)
+('couriers', ('depot',), ('city',), ('Depot',), (3, 4))
 >>> parse_annotation(Comment(" normguard: allow missing-key", Span("a.sql", 4, 1, 4, 31)), "postgres").message
 "allow annotation needs a reason: write 'normguard: allow missing-key: <why this is fine>'"
 >>> parse_annotation(Comment(" just a remark", Span("a.sql", 5, 1, 5, 17)), "postgres") is None
@@ -185,9 +186,8 @@ def _parse_allow(text: str, span: Span) -> AllowAnnotation:
             "(lower-case words joined by dashes, separated by commas)"
         )
     if not colon or not reason.strip():
-        raise _Malformed(
-            f"allow annotation needs a reason: write 'normguard: allow {', '.join(rules)}: <why this is fine>'"
-        )
+        shape = f"normguard: allow {', '.join(rules)}: <why this is fine>"
+        raise _Malformed(f"allow annotation needs a reason: write '{shape}'")
     return AllowAnnotation(rules, reason.strip(), span)
 
 
@@ -218,7 +218,8 @@ def _table(text: str, tokens: list[Token], dialect: str | None, what: str) -> tu
         raise _Malformed(f"{what} annotation: the table name is missing")
     for i, token in enumerate(tokens):
         expected_dot = i % 2 == 1
-        if expected_dot != (token.token_type == TokenType.DOT) or (not expected_dot and not _name(token, dialect)):
+        misplaced = expected_dot != (token.token_type == TokenType.DOT)
+        if misplaced or (not expected_dot and not _name(token, dialect)):
             raise _Malformed(f"{what} annotation: {_written(text, tokens)!r} is not a table name")
     if tokens[-1].token_type == TokenType.DOT:
         raise _Malformed(f"{what} annotation: {_written(text, tokens)!r} is not a table name")
@@ -226,7 +227,9 @@ def _table(text: str, tokens: list[Token], dialect: str | None, what: str) -> tu
     return parse_table_name(written, dialect or ""), written
 
 
-def _columns(text: str, tokens: list[Token], dialect: str | None, side: str) -> tuple[tuple[str, ...], tuple[str, ...]]:
+def _columns(
+    text: str, tokens: list[Token], dialect: str | None, side: str
+) -> tuple[tuple[str, ...], tuple[str, ...]]:
     """(folded, as written) column names of one side of an fd: ``a, b``."""
     if not tokens:
         raise _Malformed(f"fd annotation: the {side} side of '->' is empty; expected {_FD_SHAPE}")

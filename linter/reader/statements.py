@@ -7,7 +7,8 @@ statement is parsed alone from its tokens, so one bad statement never hides the 
 Token offsets are file offsets: an ``Identifier``'s ``meta`` start/end index ``source.text``.
 
 >>> from linter.reader.sources import Source
->>> script = split_file(Source("db/001.sql", "-- depots\\nCREATE TABLE depot (city text);\\nEND;"), "postgres")
+>>> text = "-- depots\\nCREATE TABLE depot (city text);\\nEND;"
+>>> script = split_file(Source("db/001.sql", text), "postgres")
 >>> [(s.expression.key, s.span.line, s.text) for s in script.statements]
 [('create', 2, 'CREATE TABLE depot (city text)'), ('commit', 3, 'END')]
 >>> script.statements[0].comments[0].text, script.statements[0].comments[0].span.line
@@ -568,7 +569,9 @@ def _mysql_units(reader: _Reader, tokens: list[Token]) -> list[_Unit]:
     return [unit for unit in units if unit.tokens]
 
 
-def _delimiter_cuts(reader: _Reader, tokens: Sequence[Token], delimiter: str, start: int, end: int) -> list[int]:
+def _delimiter_cuts(
+    reader: _Reader, tokens: Sequence[Token], delimiter: str, start: int, end: int
+) -> list[int]:
     """Offsets of ``delimiter`` in ``text[start:end]`` outside strings, quoted names and comments."""
     quoted = [(t.start, t.end) for t in tokens if t.token_type in _QUOTED_TOKENS]
     comments = [(c.start, c.end - 1) for c in reader.comments if start <= c.start < end]
@@ -588,7 +591,9 @@ def _delimiter_cuts(reader: _Reader, tokens: Sequence[Token], delimiter: str, st
 # ---------------------------------------------------------------------------- statements
 
 
-_NESTING = frozenset({TokenType.SEMICOLON, TokenType.L_PAREN, TokenType.R_PAREN, TokenType.BEGIN, TokenType.END, TokenType.CASE})
+_NESTING = frozenset(
+    {TokenType.SEMICOLON, TokenType.L_PAREN, TokenType.R_PAREN, TokenType.BEGIN, TokenType.END, TokenType.CASE}
+)
 
 
 def _nesting(tokens: Sequence[Token]) -> tuple[list[tuple[int, int]], int]:
@@ -739,7 +744,8 @@ def _opaque_ddl(tokens: Sequence[Token]) -> bool:
     if not words:
         return False
     if words[0] == "CREATE":
-        rest = [w for w in words[1:] if w not in ("OR", "REPLACE", "GLOBAL", "LOCAL", "TEMP", "TEMPORARY", "UNLOGGED")]
+        skip = ("OR", "REPLACE", "GLOBAL", "LOCAL", "TEMP", "TEMPORARY", "UNLOGGED")
+        rest = [w for w in words[1:] if w not in skip]
         if rest[:1] == ["TABLE"]:
             return True
         rest = [w for w in rest if w not in ("CLUSTERED", "NONCLUSTERED")]
@@ -749,7 +755,8 @@ def _opaque_ddl(tokens: Sequence[Token]) -> bool:
     if words[:2] == ["ALTER", "TABLE"]:
         levels, _ = _nesting(tokens)
         for i in range(2, len(tokens)):
-            if levels[i][0] == 0 and _word(tokens[i]) in ("ADD", "DROP", "RENAME") and not _adds_default(tokens, i):
+            action = _word(tokens[i]) in ("ADD", "DROP", "RENAME")
+            if action and levels[i][0] == 0 and not _adds_default(tokens, i):
                 return True
     return False
 
@@ -819,14 +826,16 @@ class _Parser:
     def _each_dropped(self, tokens: list[Token], terminator: Token | None) -> list[Statement]:
         """``DROP INDEX a, b CASCADE`` as one DROP per object, which sqlglot reads ([] if not)."""
         levels, _ = _nesting(tokens)
-        commas = [i for i, token in enumerate(tokens) if token.token_type == TokenType.COMMA and levels[i][0] == 0]
+        commas = [i for i, t in enumerate(tokens) if t.token_type == TokenType.COMMA and levels[i][0] == 0]
         if not commas:
             return []
         head_end = 2
         while head_end < commas[0] and _word(tokens[head_end]) in ("IF", "EXISTS", "CONCURRENTLY"):
             head_end += 1
         head, tail = tokens[:head_end], []
-        while len(tokens) - len(tail) - 1 > commas[-1] + 1 and _word(tokens[-len(tail) - 1]) in ("CASCADE", "RESTRICT"):
+        while len(tokens) - len(tail) - 1 > commas[-1] + 1 and _word(tokens[-len(tail) - 1]) in (
+            "CASCADE", "RESTRICT"
+        ):
             tail.insert(0, tokens[-len(tail) - 1])
         bounds = [head_end - 1, *commas, len(tokens) - len(tail)]
         start, stop = tokens[0].start, tokens[-1].end + 1
@@ -848,7 +857,9 @@ class _Parser:
             return [statement]
         return [self._parse(piece, end) for piece, end in _cut_at_semicolons(tokens)]
 
-    def _pieces(self, tokens: list[Token], points: list[int], terminator: Token | None, warn: bool) -> list[Statement]:
+    def _pieces(
+        self, tokens: list[Token], points: list[int], terminator: Token | None, warn: bool
+    ) -> list[Statement]:
         """Parse each piece between restart points; warn about the missing ``;``."""
         bounds = [0, *points, len(tokens)]
         result = []
@@ -885,7 +896,8 @@ class _Parser:
                 statement.problem.message += "; skipped, as it cannot change a table or key"
             return statement
         except RecursionError:
-            statement.problem = self._failure(statement, f"{_describe(tokens)} statement is nested too deeply to read")
+            message = f"{_describe(tokens)} statement is nested too deeply to read"
+            statement.problem = self._failure(statement, message)
             return statement
         except Exception as error:  # sqlglot itself failed: report, never crash
             message = f"sqlglot could not read this {_describe(tokens)} statement ({error!s:.80})"
@@ -942,7 +954,9 @@ def _quiet_sqlglot() -> Iterator[None]:
         logger.setLevel(level)
 
 
-def _attach_comments(statements: list[Statement], comments: list[Comment], lines: LineIndex) -> tuple[Comment, ...]:
+def _attach_comments(
+    statements: list[Statement], comments: list[Comment], lines: LineIndex
+) -> tuple[Comment, ...]:
     """Give each comment to the statement it is in or above; return those after the last one.
 
     A comment that starts on the line where a statement ends (after its ``;``) belongs to that

@@ -48,7 +48,9 @@ def test_fd_without_and_with_a_table() -> None:
         ("postgres", "fd lots: date, key -> b", "lots", ("date", "key")),  # keywords as column names
     ],
 )
-def test_names_fold_as_the_dialect_folds_them(dialect: str, text: str, table: str, lhs: tuple[str, ...]) -> None:
+def test_names_fold_as_the_dialect_folds_them(
+    dialect: str, text: str, table: str, lhs: tuple[str, ...]
+) -> None:
     found = parse_annotation(_line_comment(" normguard: " + text), dialect)
     assert isinstance(found, FdAnnotation)
     assert (found.table, found.lhs, found.rhs) == (table, lhs, ("b",))
@@ -60,14 +62,17 @@ def test_written_names_keep_their_quotes() -> None:
 
 
 def test_allow_with_reasons_and_split_from() -> None:
-    allow = parse_annotation(_line_comment(" normguard: allow missing-key, transitive-dependency: the vault list is fixed"), "postgres")
-    assert allow == AllowAnnotation(("missing-key", "transitive-dependency"), "the vault list is fixed", allow.span)
+    text = " normguard: allow missing-key, transitive-dependency: the vault list is fixed"
+    allow = parse_annotation(_line_comment(text), "postgres")
+    assert allow == AllowAnnotation(
+        ("missing-key", "transitive-dependency"), "the vault list is fixed", allow.span
+    )
     split = parse_annotation(_line_comment(" normguard: split-from public.lots"), "postgres")
     assert split == SplitFromAnnotation("lots", split.span, "public.lots")
 
 
 def test_ordinary_comments_are_none() -> None:
-    for text in (" depots hold bikes", " normguards are people", "", " see normguard: docs", "---- banner ----"):
+    for text in (" depots hold bikes", " normguards are people", "", " see normguard: docs", "---- x ----"):
         assert parse_annotation(_line_comment(text), "postgres") is None
 
 
@@ -120,7 +125,8 @@ def test_a_block_comment_holds_one_annotation_per_line_each_at_its_line() -> Non
     found = parse_annotations(comment, "postgres")
     assert [type(f).__name__ for f in found] == ["FdAnnotation", "AllowAnnotation", "Finding"]
     assert [(f.span.line, f.span.column) for f in found] == [(5, 4), (6, 4), (7, 4)]
-    assert text.splitlines()[4][found[0].span.column - 1 : found[0].span.end_column - 1] == "normguard: fd genus -> family"
+    fd_span = found[0].span
+    assert text.splitlines()[4][fd_span.column - 1 : fd_span.end_column - 1] == "normguard: fd genus -> family"
     assert parse_annotation(comment, "postgres") == found[0]
 
 

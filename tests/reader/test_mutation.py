@@ -23,7 +23,10 @@ SEEDS = [
     for dialect in ("postgres", "mysql", "sqlite", "tsql")
     for path in sorted((FIXTURES / dialect).rglob("*.sql"))
 ] + [("oracle", "CREATE TABLE t (a NUMBER);\nBEGIN\n  NULL;\nEND;\n/\nSET DEFINE OFF\n")]
-NOISE = st.sampled_from(list("';\"`$()[]/*-#\\\n\r\t,.:") + ["$$", "/*", "*/", "--", "GO", "\nGO\n", "\n/\n", "DELIMITER //\n", "BEGIN", "END", "\x00", "\ufeff", "\udcff"])
+NOISE = st.sampled_from(
+    list("';\"`$()[]/*-#\\\n\r\t,.:")
+    + ["$$", "/*", "*/", "--", "GO", "\nGO\n", "\n/\n", "DELIMITER //\n", "BEGIN", "END", "\x00", "\ufeff", "\udcff"]
+)
 
 
 @st.composite
@@ -57,7 +60,8 @@ def _inside(finding: Finding, text: str) -> bool:
     span = finding.span
     if not (1 <= span.line <= span.end_line <= len(lines) and span.column >= 1):
         return False
-    return span.column <= len(lines[span.line - 1]) + 1 and span.end_column <= len(lines[span.end_line - 1]) + 1
+    first, last = lines[span.line - 1], lines[span.end_line - 1]
+    return span.column <= len(first) + 1 and span.end_column <= len(last) + 1
 
 
 def _check(dialect: str, text: str) -> None:

@@ -36,9 +36,12 @@ def test_one_folder_per_migration_and_down_migrations_skipped(tmp_path: Path) ->
         "V3.rename.up.sql", "V3.rename.down.sql", "0004_seed_down.sql", "0005_undo-down.sql",
     )
     found = _relative(discover_files([str(tmp_path)]), tmp_path)
-    assert found == ["2024-09-30-080000_init/up.sql", "2024-10-02-120000_add_depots/up.sql", "V3.rename.up.sql"]
+    assert found == [
+        "2024-09-30-080000_init/up.sql", "2024-10-02-120000_add_depots/up.sql", "V3.rename.up.sql",
+    ]
     everything = _relative(discover_files([str(tmp_path)], skip_down=False), tmp_path)
-    assert len(everything) == 8 and everything.index("V3.rename.down.sql") > everything.index("0005_undo-down.sql")
+    assert len(everything) == 8
+    assert everything.index("V3.rename.down.sql") > everything.index("0005_undo-down.sql")
 
 
 def test_synapse_layout_deltas_in_numeric_order_with_suffix_variants(tmp_path: Path) -> None:
@@ -57,7 +60,9 @@ def test_synapse_layout_deltas_in_numeric_order_with_suffix_variants(tmp_path: P
 
 
 def test_include_and_exclude_globs(tmp_path: Path) -> None:
-    _touch(tmp_path, "schema/001_a.sql", "schema/002_b.sql", "seed/001_data.sql", "schema/archive/000_old.sql")
+    _touch(
+        tmp_path, "schema/001_a.sql", "schema/002_b.sql", "seed/001_data.sql", "schema/archive/000_old.sql"
+    )
     assert _relative(discover_files([str(tmp_path)], exclude=("seed/**", "**/archive/*")), tmp_path) == [
         "schema/001_a.sql", "schema/002_b.sql",
     ]
@@ -68,7 +73,7 @@ def test_include_and_exclude_globs(tmp_path: Path) -> None:
 
 def test_explicit_files_keep_their_order_and_are_read_even_if_not_included(tmp_path: Path) -> None:
     _touch(tmp_path, "b.sql", "a.sql", "notes.ddl", "dir/1.sql")
-    given = [str(tmp_path / "b.sql"), str(tmp_path / "notes.ddl"), str(tmp_path / "dir"), str(tmp_path / "a.sql"), str(tmp_path / "b.sql")]
+    given = [str(tmp_path / name) for name in ("b.sql", "notes.ddl", "dir", "a.sql", "b.sql")]
     assert _relative(discover_files(given), tmp_path) == ["b.sql", "notes.ddl", "dir/1.sql", "a.sql"]
 
 
@@ -82,7 +87,9 @@ def test_missing_path_is_kept_and_reported_when_read(tmp_path: Path) -> None:
     assert "No such file" in problem.message
 
 
-def test_paths_are_relative_to_the_working_directory_with_forward_slashes(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> None:
+def test_paths_are_relative_to_the_working_directory_with_forward_slashes(
+    tmp_path: Path, monkeypatch: pytest.MonkeyPatch
+) -> None:
     _touch(tmp_path, "db/001.sql")
     monkeypatch.chdir(tmp_path)
     assert discover_files(["db"]) == ["db/001.sql"]
@@ -150,7 +157,9 @@ def test_a_folder_given_as_a_file_is_reported(tmp_path: Path) -> None:
     assert source.skipped and "folder" in source.problems[0].message
 
 
-@pytest.mark.skipif(not hasattr(os, "geteuid") or os.geteuid() == 0, reason="root reads files whatever their mode")
+@pytest.mark.skipif(
+    not hasattr(os, "geteuid") or os.geteuid() == 0, reason="root reads files whatever their mode"
+)
 def test_permission_denied_on_disk(tmp_path: Path) -> None:
     path = tmp_path / "secret.sql"
     path.write_text("SELECT 1;", encoding="utf-8")

@@ -157,7 +157,8 @@ def test_tsql_go_batches_and_statements_without_semicolons() -> None:
     text, script = _fixture("tsql", "001_ferry_batches.sql")
     assert _kinds(script) == [("ast", 2), ("ast", 7), ("ast", 13), ("ast", 15), ("command", 17)]
     vessels, captains = script.statements[1], script.statements[2]
-    assert vessels.text.endswith("([vessel_id])\n)") and captains.text.startswith("CREATE TABLE [dbo].[captains]")
+    assert vessels.text.endswith("([vessel_id])\n)")
+    assert captains.text.startswith("CREATE TABLE [dbo].[captains]")
     assert not script.findings  # T-SQL needs no ';' between statements: no warning
     assert isinstance(script.statements[0].expression, exp.IfBlock)
 
@@ -200,11 +201,12 @@ def test_missing_semicolon_between_ddl_statements_is_reported_and_recovered() ->
 
 
 def test_the_synapse_file_with_a_missing_semicolon() -> None:
-    path = Path(__file__).resolve().parents[3] / "shared" / "corpus" / "synapse" / "synapse" / "storage" / "schema" / "main" / "delta" / "54" / "account_validity_with_renewal.sql"
+    corpus = Path(__file__).resolve().parents[3] / "shared" / "corpus" / "synapse"
+    path = corpus / "synapse/storage/schema/main/delta/54/account_validity_with_renewal.sql"
     if not path.is_file():
         pytest.skip(f"{path} is missing: this check reads the shared corpus")
     script = split_file(read_source(str(path)), "postgres")
-    kinds = [(s.expression.key, bool(s.expression.args.get("unique"))) for s in script.statements if s.expression is not None]
+    kinds = [(s.expression.key, bool(s.expression.args.get("unique"))) for s in script.statements if s.expression]
     assert ("create", True) in kinds
     assert any("missing ';'" in f.message for f in script.findings)
 
@@ -218,7 +220,8 @@ def test_opaque_ddl_is_replayed_other_commands_and_fragments_are_skipped() -> No
         "ALTER TYPE mood OWNER TO app;\n",
         "postgres",
     )
-    assert [(s.kind, s.opaque, s.span.line) for s in script.statements] == [("opaque", True, 2), ("opaque", True, 3)]
+    replayed = [(s.kind, s.opaque, s.span.line) for s in script.statements]
+    assert replayed == [("opaque", True, 2), ("opaque", True, 3)]
     assert [(s.kind, s.span.line) for s in script.skipped] == [("command", 1), ("command", 4)]
     assert script.count("opaque") == 2 and script.count("command") == 2
     fragment = _split("CREATE TABLE t (id int);\nleftover;\n", "postgres")
@@ -234,15 +237,18 @@ def test_multi_object_drop_is_read_one_object_at_a_time() -> None:
 
 
 def test_unterminated_string_keeps_what_came_before() -> None:
-    script = _split("CREATE TABLE depots (code text);\nINSERT INTO depots VALUES ('north);\nCREATE TABLE x (a int);\n", "postgres")
+    text = "CREATE TABLE depots (code text);\nINSERT INTO depots VALUES ('north);\nCREATE TABLE x (a int);\n"
+    script = _split(text, "postgres")
     assert [s.expression.key for s in script.statements] == ["create"]
     (finding,) = script.findings
     assert (finding.rule, finding.span.line, finding.span.column) == ("syntax-error", 2, 28)
-    assert "unterminated quoted text" in finding.message and "1 line(s) after it were not read" in finding.message
+    assert "unterminated quoted text" in finding.message
+    assert "1 line(s) after it were not read" in finding.message
 
 
 def test_unclosed_block_comment_is_reported_at_its_opener() -> None:
-    script = _split("CREATE TABLE depots (code text);\n/* forgot to close\nCREATE TABLE x (a int);\n", "postgres")
+    text = "CREATE TABLE depots (code text);\n/* forgot to close\nCREATE TABLE x (a int);\n"
+    script = _split(text, "postgres")
     assert [s.kind for s in script.statements] == ["ast"]
     (finding,) = script.findings
     assert (finding.span.line, finding.span.column) == (2, 1) and "never closed" in finding.message
@@ -252,7 +258,8 @@ def test_crlf_lines_and_columns() -> None:
     text = "-- depots\r\nCREATE TABLE depots (\r\n  code text,\r\n  city text\r\n);\r\n"
     script = _split(text, "postgres")
     (statement,) = script.statements
-    assert (statement.span.line, statement.span.column, statement.span.end_line, statement.span.end_column) == (2, 1, 5, 2)
+    span = statement.span
+    assert (span.line, span.column, span.end_line, span.end_column) == (2, 1, 5, 2)
     assert statement.comments[0].text == " depots" and statement.comments[0].span.end_column == 10
     city = [c for c in statement.expression.find_all(exp.ColumnDef)][1]
     assert (statement.span_of(city).line, statement.span_of(city).column) == (4, 3)
@@ -295,20 +302,27 @@ def test_psql_copy_data_rows_are_not_sql() -> None:
         "CREATE TABLE riders (id int);\n"
     )
     script = _split(text, "postgres")
-    assert [(s.expression.key, s.span.line) for s in script.statements] == [("create", 1), ("copy", 2), ("create", 7)]
+    read = [(s.expression.key, s.span.line) for s in script.statements]
+    assert read == [("create", 1), ("copy", 2), ("create", 7)]
     assert not script.findings
     assert [c.text for c in script.statements[2].comments] == [" about riders"]
 
 
 def test_tsql_block_then_create_without_go_keeps_the_table() -> None:
     # sqlglot's T-SQL tokenizer would read the text after END up to the next ';' as one string.
-    text = "IF OBJECT_ID('dbo.vessels') IS NOT NULL\nBEGIN\n  DROP TABLE dbo.vessels;\nEND\nCREATE TABLE dbo.vessels (id INT PRIMARY KEY);\n"
+    text = (
+        "IF OBJECT_ID('dbo.vessels') IS NOT NULL\nBEGIN\n  DROP TABLE dbo.vessels;\nEND\n"
+        "CREATE TABLE dbo.vessels (id INT PRIMARY KEY);\n"
+    )
     script = _split(text, "tsql")
     assert [(s.expression.key, s.span.line) for s in script.statements] == [("ifblock", 1), ("create", 5)]
 
 
 def test_a_block_sqlglot_cannot_read_is_an_error_when_it_touches_tables() -> None:
-    text = "BEGIN TRY\n  CREATE TABLE vessels (id INT);\nEND TRY\nBEGIN CATCH\n  PRINT 'x';\nEND CATCH;\nCREATE TABLE ports (id INT);"
+    text = (
+        "BEGIN TRY\n  CREATE TABLE vessels (id INT);\nEND TRY\n"
+        "BEGIN CATCH\n  PRINT 'x';\nEND CATCH;\nCREATE TABLE ports (id INT);"
+    )
     script = _split(text, "tsql")
     assert [(s.kind, s.span.line) for s in script.statements] == [("error", 1), ("ast", 7)]
     assert [f.severity for f in script.findings] == ["error"]
