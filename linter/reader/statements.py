@@ -540,13 +540,21 @@ def _cut_at_lines(tokens: list[Token], separator) -> list[_Unit]:
 
 def _mysql_units(reader: _Reader, tokens: list[Token]) -> list[_Unit]:
     """Honour the mysql client's ``DELIMITER xx`` lines: text up to ``xx`` is one statement."""
-    marks = [
-        i for i, token in enumerate(tokens)
-        if _word(token) == "DELIMITER" and (i == 0 or tokens[i - 1].line < token.line)
-    ]
+    text = reader.text
+    marks, custom = [], False
+    for i, token in enumerate(tokens):
+        # DELIMITER counts at the start of a line where a statement may start (a column called
+        # delimiter on a line of its own inside CREATE TABLE does not).
+        if _word(token) != "DELIMITER" or (i and tokens[i - 1].line == token.line):
+            continue
+        if custom or i == 0 or tokens[i - 1].token_type == TokenType.SEMICOLON:
+            line_end = text.find("\n", token.end)
+            words = text[token.end + 1 : len(text) if line_end < 0 else line_end].split()
+            if words:
+                marks.append(i)
+                custom = words[0] != ";"
     if not marks:
         return [_Unit(tokens)]
-    text = reader.text
     units = [_Unit(tokens[: marks[0]])]
     for n, mark in enumerate(marks):
         line_end = text.find("\n", tokens[mark].end)

@@ -326,3 +326,10 @@ def test_a_block_sqlglot_cannot_read_is_an_error_when_it_touches_tables() -> Non
     script = _split(text, "tsql")
     assert [(s.kind, s.span.line) for s in script.statements] == [("error", 1), ("ast", 7)]
     assert [f.severity for f in script.findings] == ["error"]
+
+
+def test_a_column_called_delimiter_is_not_a_client_command() -> None:
+    text = "CREATE TABLE exports (\n  id int,\ndelimiter char(1)\n);\nDELIMITER //\nCREATE TABLE b (x int)//\n"
+    script = _split(text, "mysql")
+    assert [(s.kind, s.span.line) for s in script.statements] == [("ast", 1), ("ast", 6)]
+    assert script.statements[0].text.endswith("delimiter char(1)\n)")
