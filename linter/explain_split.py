@@ -94,9 +94,10 @@ def _join_lines(analysis: SplitAnalysis) -> list[str]:
 def _preservation_lines(analysis: SplitAnalysis) -> list[str]:
     """Each dependency of the minimal cover: the piece that holds it, or that it is not preserved."""
     names = analysis.attrs
-    lines = ["every dependency is preserved:" if not analysis.lost else "not every dependency is preserved:"]
+    lines = ["not every dependency is preserved:" if analysis.lost else "every dependency is preserved:"]
     for fd in analysis.cover:
-        whole = [p.table for p, bits in zip(analysis.split.pieces, analysis.pieces) if not (fd.lhs | fd.rhs) & ~bits]
+        needed = fd.lhs | fd.rhs
+        whole = [p.table for p, bits in zip(analysis.split.pieces, analysis.pieces) if not needed & ~bits]
         if fd in analysis.lost:
             where = "not preserved: it needs a join to check (unenforceable-dependency)"
         elif whole:

@@ -175,5 +175,6 @@ def carried_table(analysis: SplitAnalysis) -> Table:
     """The original cut down to the columns the pieces carry, F projected: what an alternative splits."""
     split, attrs, span = analysis.split, analysis.attrs, analysis.split.span
     columns = [Column(name, "", False, span) for name in attrs.to_names(analysis.relation)]
-    declared = [Dependency(attrs.to_names(fd.lhs), attrs.to_names(fd.rhs), span, "split") for fd in analysis.fds]
+    declared = [Dependency(attrs.to_names(fd.lhs), attrs.to_names(fd.rhs), span, "split")
+                for fd in analysis.fds]
     return Table(split.original, span, columns, dependencies=declared)

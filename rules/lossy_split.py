@@ -96,4 +96,5 @@ def _lacking(analysis: SplitAnalysis, key: int) -> Sequence[str]:
     return [analysis.split.pieces[i].table for i in analysis.carrying if key & ~analysis.pieces[i]]
 
 
-RULE = Rule(ID, "error", "A split's pieces cannot be joined back into the original rows.", read_page(ID), check)
+RULE = Rule(ID, "error", "A split's pieces cannot be joined back into the original rows.",
+            read_page(ID), check)

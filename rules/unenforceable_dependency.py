@@ -59,8 +59,9 @@ def _merged(lost: tuple[FD, ...]) -> list[FD]:
 def _explanation(analysis: SplitAnalysis, fd: FD) -> list[str]:
     """Where each column of the dependency went, and how to enforce it still."""
     names, pieces = analysis.attrs, listing(analysis.piece_names(fd.lhs | fd.rhs))
+    placed = [f"{names.format(a)} went to {listing(analysis.piece_names(a))}" for a in members(fd.lhs | fd.rhs)]
     return [
-        "; ".join(f"{names.format(a)} went to {listing(analysis.piece_names(a))}" for a in members(fd.lhs | fd.rhs)),
+        "; ".join(placed),
         "the dependencies the pieces enforce on their own do not imply it either",
         f"enforce it with a trigger or an assertion that joins {pieces},"
         f" or keep {names.format(fd.lhs | fd.rhs)} together in one table",
@@ -74,5 +75,6 @@ def _proposal(analysis: SplitAnalysis) -> list[str]:
             *(f"  {line}" for line in proposal.describe_decomposition(proposal.synthesis))]
 
 
-RULE = Rule(ID, "warning", "After a split, a dependency of the original spans tables and needs a join to check.",
+RULE = Rule(ID, "warning",
+            "After a split, a dependency of the original spans tables and needs a join to check.",
             read_page(ID), check)
