@@ -48,8 +48,9 @@ def explain(
                           target=target and target.lower())
         read = existing(paths, "given on the command line") if paths else existing(config.paths, "from 'paths'")
         result = run(config, read)
-        splits = split_section(result.catalog, parse_table_name(table, config.dialect))
-        if splits and parse_table_name(table, config.dialect) not in result.analyses:
+        name = parse_table_name(table, config.dialect)
+        splits = split_section(result.catalog, name)
+        if splits and name not in result.analyses:
             click.echo("\n".join(splits[1:]))  # a dropped original: its splits are what is left of it
             return
         analysis = result.analyses[_analysis_of(result, table, config.dialect)]
