@@ -133,11 +133,14 @@ def _unknown_allows(catalog: Catalog) -> Iterable[Finding]:
 
 
 def _suppress(findings: list[Finding], catalog: Catalog) -> tuple[list[Finding], list[Finding]]:
-    """Split findings into kept and those an ``allow`` annotation of their table names."""
-    allowed = {
-        name: {rule_id for allow in table.allows for rule_id in allow.rules}
-        for name, table in catalog.tables.items()
-    }
+    """Split findings into kept and those an ``allow`` annotation of their table names.
+
+    Dropped tables count too: a split's findings belong to its original, which is often gone.
+    """
+    allowed: dict[str, set[str]] = {}
+    for table in [*catalog.dropped, *catalog.tables.values()]:
+        rules = allowed.setdefault(table.name, set())
+        rules.update(rule_id for allow in table.allows for rule_id in allow.rules)
     kept, suppressed = [], []
     for finding in findings:
         is_allowed = finding.rule in allowed.get(finding.table or "", ())

@@ -146,3 +146,24 @@ def test_allow_on_a_shrunk_original_moves_its_findings_to_suppressed(tmp_path: P
     assert split_findings(result) == []
     assert [(f.rule, f.dependency) for f in result.suppressed] == [
         ("unenforceable-dependency", (("depot",), ("city",)))]
+
+
+def test_allow_on_a_dropped_original_moves_its_findings_to_suppressed(tmp_path: Path, monkeypatch) -> None:
+    """A split's findings belong to its original; the allow on it applies after the original is dropped."""
+    monkeypatch.chdir(tmp_path)
+    (tmp_path / "001_couriers.sql").write_text(
+        "CREATE TABLE couriers (\n"
+        "    courier_id integer PRIMARY KEY,\n"
+        "    depot text NOT NULL,\n"
+        "    city text NOT NULL\n"
+        "    -- normguard: fd depot -> city\n"
+        "    -- normguard: allow unenforceable-dependency: a trigger on courier_cities checks it\n"
+        ");\n", encoding="utf-8")
+    (tmp_path / "002_cities.sql").write_text(
+        "CREATE TABLE courier_depots AS SELECT courier_id, depot FROM couriers;\n"
+        "CREATE TABLE courier_cities AS SELECT courier_id, city FROM couriers;\n"
+        "DROP TABLE couriers;\n", encoding="utf-8")
+    result = run(Config(paths=(".",)))
+    assert split_findings(result) == []
+    assert [(f.rule, f.dependency) for f in result.suppressed] == [
+        ("unenforceable-dependency", (("depot",), ("city",)))]
