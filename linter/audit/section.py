@@ -195,6 +195,6 @@ def _history(history: Sequence[Record]) -> str:
     items = []
     for _, events in groupby(history, key=lambda h: h["path"]):
         listed = list(events)
-        what = "; ".join(f'<span class="action">{e(h["action"])}</span> {e(h["detail"])}' for h in listed)
+        what = "; ".join(f'<span class="event" data-action="{e(h["action"])}">{e(h["detail"])}</span>' for h in listed)
         items.append(f"<li>{where(listed[0])}<div>{what}</div></li>")
     return f'<ol class="history">{"".join(items)}</ol>'

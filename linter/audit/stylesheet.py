@@ -103,7 +103,7 @@ ol.history { list-style: none; margin: 0; padding: 0 0 0 14px; border-left: 2px 
 ol.history li { position: relative; padding: 3px 0 7px 6px; break-inside: avoid; }
 ol.history li::before { content: ""; position: absolute; left: -20px; top: 9px; width: 8px; height: 8px; border-radius: 50%; background: var(--accent); }
 ol.history .loc { white-space: normal; overflow-wrap: anywhere; }
-.history .action { font-weight: 600; }
+.history .event[data-action="created"], .history .event[data-action="dropped"] { font-weight: 600; }
 .facts { color: var(--muted); margin: 2px 0 4px; font-size: .9rem; }
 ul.deps { list-style: none; padding: 0; margin: 0; }
 ul.deps li { padding: 5px 0; border-bottom: 1px solid var(--rule); }
