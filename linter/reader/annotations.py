@@ -36,8 +36,9 @@ from sqlglot.errors import TokenError
 from sqlglot.tokens import Token, TokenType
 
 from linter.model import Finding, Span
+from linter.reader.dialects import get_dialect
 from linter.reader.names import fold_column, parse_table_name
-from linter.reader.statements import Comment, get_dialect
+from linter.reader.script import Comment
 
 __all__ = [
     "AllowAnnotation",

@@ -20,9 +20,9 @@ from collections.abc import Iterable, Mapping, Sequence
 from linter.model import Allow, Dependency, Finding, Span, Table
 from linter.reader.annotations import AllowAnnotation, FdAnnotation, SplitFromAnnotation, parse_annotations
 from linter.reader.names import parse_column_name, parse_table_name
+from linter.reader.script import Comment
 from linter.reader.splits import declare
 from linter.reader.state import ReplayState
-from linter.reader.statements import Comment
 
 
 def _error(state: ReplayState, span: Span, message: str, table: str | None = None) -> None:

@@ -3,7 +3,7 @@
 The catalog needs it (a later DROP CONSTRAINT looks for the new name) and its grammar is small
 enough to follow token by token: ``ALTER TABLE [IF EXISTS] [ONLY] t RENAME CONSTRAINT a TO b``.
 
->>> from linter.reader.statements import get_dialect
+>>> from linter.reader.dialects import get_dialect
 >>> tokens = get_dialect("postgres").tokenize('"Billing".invoices RENAME')
 >>> name, after = _name(tokens, 0)
 >>> name.sql(dialect="postgres"), tokens[after].text
@@ -17,9 +17,9 @@ from sqlglot import exp
 from sqlglot.errors import TokenError
 from sqlglot.tokens import Token, TokenType
 
+from linter.reader.dialects import get_dialect
 from linter.reader.names import fold_column, table_name
 from linter.reader.state import ReplayState
-from linter.reader.statements import get_dialect
 
 _NAME_TYPES = frozenset({TokenType.VAR, TokenType.IDENTIFIER})
 

@@ -39,7 +39,7 @@ class ScriptFile:
 
     path: str
     dialect: str
-    script: Any  # linter.reader.statements.Script
+    script: Any  # linter.reader.script.Script
 
 
 def replay(
