@@ -14,13 +14,11 @@ wins), replays them, and attaches config-declared dependencies to the final tabl
 """
 from __future__ import annotations
 
-import os
 from collections.abc import Callable, Iterator, Mapping, Sequence
-from pathlib import Path
 
 from linter.model import Catalog, Dependency
 from linter.reader.replay import ScriptFile, replay
-from linter.reader.sources import discover_files, read_source
+from linter.reader.sources import discover_files, display_path, read_source
 from linter.reader.statements import split_file
 
 __all__ = ["read_catalog", "replay", "ScriptFile"]
@@ -57,16 +55,8 @@ def _scripts(files: list[str], dialect: str, prefixes: list[tuple[str, str]],
 
 def _prefixes(overrides: Mapping[str, str]) -> list[tuple[str, str]]:
     """Override prefixes as displayed paths (relative, forward slashes), longest first."""
-    shown = [(_display(prefix), dialect) for prefix, dialect in overrides.items()]
+    shown = [(display_path(prefix), dialect) for prefix, dialect in overrides.items()]
     return sorted(shown, key=lambda item: len(item[0]), reverse=True)
-
-
-def _display(path: str) -> str:
-    """A folder path written like the file paths ``discover_files`` returns."""
-    try:
-        return Path(os.path.relpath(path)).as_posix()
-    except ValueError:  # another drive on Windows
-        return Path(path).as_posix()
 
 
 def _under(path: str, prefix: str) -> bool:

@@ -145,9 +145,9 @@ def discover_files(
     for given in paths:
         path = Path(given)
         candidates = (
-            [_display(p) for p in _folder_files(path, include, exclude, skip_down)]
+            [display_path(p) for p in _folder_files(path, include, exclude, skip_down)]
             if path.is_dir()
-            else [_display(path)]
+            else [display_path(path)]
         )
         for candidate in candidates:
             key = os.path.normcase(os.path.abspath(candidate))
@@ -157,12 +157,12 @@ def discover_files(
     return result
 
 
-def _display(path: Path) -> str:
-    """The path relative to the working directory when it lies below it, with forward slashes."""
+def display_path(path: str | os.PathLike[str]) -> str:
+    """The path relative to the working directory, with forward slashes, as findings show paths."""
     try:
         return Path(os.path.relpath(path)).as_posix()
     except ValueError:  # another drive on Windows
-        return path.as_posix()
+        return Path(path).as_posix()
 
 
 def _file_problem(path: str, message: str, severity: str = "warning") -> Finding:
@@ -178,7 +178,7 @@ def read_source(path: str) -> Source:
     text that is not UTF-8 is reported at the line of its first bad byte and read with
     replacement characters.
     """
-    shown = _display(Path(path))
+    shown = display_path(path)
     try:
         status = os.stat(path)
         if stat.S_ISDIR(status.st_mode):
