@@ -10,14 +10,16 @@
 Each dependency keeps a counter of the attributes of its left side not yet in the closure, and
 each attribute the list of dependencies whose left side holds it. An attribute entering the
 closure decrements the counters of its dependencies; a counter reaching zero adds the right side.
+A dependency with an empty left side waits on a virtual attribute 0 that is known from the start.
 Every left-side attribute is counted down at most once, so a query costs O(|X| + sum of |lhs|).
 ``ClosureIndex`` builds those lists once for many queries; ``closure`` is the one-shot form.
 """
 from __future__ import annotations
 
+from collections import defaultdict
 from collections.abc import Iterable, Sequence
 
-from .fd import FD, members
+from .fd import FD
 
 
 class ClosureIndex:
@@ -27,17 +29,20 @@ class ClosureIndex:
         self.fds: list[tuple[int, int]] = list(fds)
         self._unmet: list[int] = []
         self._rhs: list[int] = []
-        self._empty_lhs: list[int] = []
-        self._users: dict[int, list[int]] = {}
+        self._users: defaultdict[int, list[int]] = defaultdict(list)
         self._all_rhs = 0
         for i, (lhs, rhs) in enumerate(self.fds):
-            self._unmet.append(lhs.bit_count())
             self._rhs.append(rhs)
             self._all_rhs |= rhs
-            if not lhs:
-                self._empty_lhs.append(i)
-            for a in members(lhs):
-                self._users.setdefault(a, []).append(i)
+            if not lhs:  # waits on the virtual attribute 0, known from the start
+                self._unmet.append(1)
+                self._users[0].append(i)
+                continue
+            self._unmet.append(lhs.bit_count())
+            while lhs:
+                a = lhs & -lhs
+                lhs ^= a
+                self._users[a].append(i)
 
     def closure(self, x: int, skip: Iterable[int] = ()) -> int:
         """X+ under the dependencies, leaving out those at the positions in ``skip``."""
@@ -59,29 +64,24 @@ class ClosureIndex:
         unmet = self._unmet.copy()
         for i in skip:
             unmet[i] = -1  # counts down past zero, never fires
-        result = x
-        for i in self._empty_lhs:
-            if unmet[i] == 0:
-                result = self._add(i, result, fired)
-        pending = result
+        rhs = self._rhs
         users = self._users
-        while pending and goal & ~result:
-            a = pending & -pending
-            pending ^= a
+        result = x
+        pending = x
+        a = 0  # the virtual attribute first, then each attribute as it enters the closure
+        while True:
             for i in users.get(a, ()):
                 unmet[i] -= 1
-                if unmet[i] == 0:
-                    grown = self._add(i, result, fired)
-                    pending |= grown & ~result
-                    result = grown
-        return result
-
-    def _add(self, i: int, result: int, fired: list[tuple[int, int]] | None) -> int:
-        """Add the right side of dependency i, recording what it added when asked to."""
-        added = self._rhs[i] & ~result
-        if fired is not None and added:
-            fired.append((i, added))
-        return result | added
+                if unmet[i] == 0 and rhs[i] & ~result:
+                    added = rhs[i] & ~result
+                    result |= added
+                    pending |= added
+                    if fired is not None:
+                        fired.append((i, added))
+            if not pending or not goal & ~result:
+                return result
+            a = pending & -pending
+            pending ^= a
 
 
 def closure(x: int, fds: Sequence[tuple[int, int]]) -> int:

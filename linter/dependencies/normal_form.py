@@ -62,7 +62,7 @@ def normal_form(
     prime = 0
     for key in keys.keys:
         prime |= key
-    parts = _key_parts(keys.keys, index)
+    parts = _KeyParts(keys.keys, index)
     violations = tuple(
         Violation(fd, *_classify(fd, prime, keys.keys, parts))
         for fd in cover
@@ -71,21 +71,34 @@ def normal_form(
     return NormalFormReport(_form(violations), violations, keys)
 
 
-def _key_parts(keys: Sequence[int], index: ClosureIndex) -> list[tuple[int, int]]:
-    """(key, closure of the key less one attribute) for every key and attribute of it."""
-    return [(key, index.closure(key & ~a)) for key in keys for a in members(key)]
+class _KeyParts:
+    """Closures of each key less one attribute, taken when first needed."""
+
+    def __init__(self, keys: Sequence[int], index: ClosureIndex) -> None:
+        self._keys = keys
+        self._index = index
+        self._closures: dict[int, int] = {}
+
+    def key_determining(self, x: int) -> int | None:
+        """The first key with a proper subset whose closure holds X, if any."""
+        for key in self._keys:
+            for a in members(key):
+                part = key & ~a
+                if part not in self._closures:
+                    self._closures[part] = self._index.closure(part)
+                if not x & ~self._closures[part]:
+                    return key
+        return None
 
 
-def _classify(
-    fd: FD, prime: int, keys: Sequence[int], parts: list[tuple[int, int]]
-) -> tuple[str, int]:
+def _classify(fd: FD, prime: int, keys: Sequence[int], parts: _KeyParts) -> tuple[str, int]:
     """The kind of a violating dependency and the key it is reported against."""
     if fd.rhs & prime:
         return "bcnf", next(key for key in keys if key & fd.rhs)
     if not fd.lhs & ~prime:
-        for key, part_closure in parts:
-            if not fd.lhs & ~part_closure:
-                return "partial", key
+        key = parts.key_determining(fd.lhs)
+        if key is not None:
+            return "partial", key
     return "transitive", keys[0]
 
 
