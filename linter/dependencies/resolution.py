@@ -6,8 +6,8 @@
 
 For an attribute B, every X -> B and W -> A with B in W give the resolvent X u (W - B) -> A, and
 the dependencies that mention B go: on the remaining attributes the result implies exactly what
-the input did. The attribute with the fewest resolvents (in x out) goes first; one that nothing
-determines or nothing uses goes at no cost. A dependency whose left side holds that of another
+the input did. Attributes that nothing determines or nothing uses go first, all at once (they make
+no resolvent); then the one with the fewest resolvents (in x out). A dependency whose left side holds that of another
 with the same right side is dropped as it comes, so is a trivial one.
 """
 from __future__ import annotations
@@ -23,9 +23,12 @@ def eliminate(fds: Iterable[FD], gone: int, budget: int) -> list[FD] | None:
     resolution = _Resolution(fds)
     made = 0
     while gone:
-        b = min(members(gone), key=lambda a: (resolution.cost(a), a))
-        gone &= ~b
-        made += resolution.eliminate(b)
+        costs = {a: resolution.cost(a) for a in members(gone)}
+        cheapest = min(costs, key=lambda a: (costs[a], a))
+        free = [a for a, cost in costs.items() if cost == 0]  # resolving them makes nothing
+        for b in free or [cheapest]:
+            gone &= ~b
+            made += resolution.eliminate(b)
         if made > budget:
             return None
     return sorted(resolution.fds(), key=fd_order)
