@@ -1,5 +1,6 @@
 """Attribute closure X+ in linear time (Beeri & Bernstein 1979).
 
+>>> from linter.dependencies import FD
 >>> fds = [FD(0b001, 0b010), FD(0b010, 0b100)]
 >>> closure(0b001, fds)
 7
@@ -18,8 +19,6 @@ from __future__ import annotations
 
 from collections import defaultdict
 from collections.abc import Iterable, Sequence
-
-from .fd import FD
 
 
 class ClosureIndex:
