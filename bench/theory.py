@@ -93,54 +93,41 @@ def _queries(n: int, count: int, seed: int) -> list[int]:
     return [sum(1 << p for p in rng.sample(range(n), rng.randint(1, 4))) for _ in range(count)]
 
 
+Operation = Callable[[int, list[FD]], object]
+
+# name, ours, the brute force, whether the brute force enumerates subsets (small relations only)
+OPERATIONS: list[tuple[str, Operation, Operation, bool]] = [
+    ("minimal cover", lambda r, f: minimal_cover(f), lambda r, f: brute.naive_minimal_cover(f), False),
+    ("candidate keys", lambda r, f: candidate_keys(r, f, time_limit=None), brute.keys_by_subsets, True),
+    ("normal form", normal_form, brute.normal_form_by_definition, True),
+    ("3NF synthesis", synthesize_3nf, brute.synthesis_by_subsets, True),
+    ("BCNF decompose", bcnf_decompose, brute.bcnf_by_subsets, True),
+]
+
+
 def sizes_table(repeats: int) -> None:
     """Each operation against its brute-force twin, per size."""
     print("operation        attrs   ours ms  brute ms     brute/ours  notes")
     for n in SIZES:
         r, fds = generated_relation(n, seed=n)
         keys = candidate_keys(r, fds, time_limit=None)
-        small = n <= BRUTE_LIMIT
+        notes = f"{len(keys.keys)} key(s), {normal_form(r, fds, keys).form}"
         index = ClosureIndex(fds)
         queries = _queries(n, 200, seed=n)
-        rows: list[tuple[str, Callable[[], object], Callable[[], object] | None, int]] = [
-            (
-                "closure x200",
-                lambda: [index.closure(x) for x in queries],
-                lambda: [brute.naive_closure(x, fds) for x in queries],
-                repeats,
-            ),
-            ("minimal cover", lambda: minimal_cover(fds), lambda: brute.naive_minimal_cover(fds), 5),
-            (
-                "candidate keys",
-                lambda: candidate_keys(r, fds, time_limit=None),
-                (lambda: brute.keys_by_subsets(r, fds)) if small else None,
-                repeats,
-            ),
-            (
-                "normal form",
-                lambda: normal_form(r, fds),
-                (lambda: brute.normal_form_by_definition(r, fds)) if small else None,
-                repeats,
-            ),
-            (
-                "3NF synthesis",
-                lambda: synthesize_3nf(r, fds),
-                (lambda: brute.synthesis_by_subsets(r, fds)) if small else None,
-                repeats,
-            ),
-            (
-                "BCNF decompose",
-                lambda: bcnf_decompose(r, fds),
-                (lambda: brute.bcnf_by_subsets(r, fds)) if small else None,
-                repeats,
-            ),
-        ]
-        notes = f"{len(keys.keys)} key(s), {normal_form(r, fds, keys).form}"
-        for name, ours, theirs, times in rows:
-            mine = median_seconds(ours, times)
-            other = None if theirs is None else median_seconds(theirs, 3)
-            print(f"{name:16} {n:5} {_ms(mine)} {_ms(other):>9} {_ratio(mine, other):>14}  {notes}")
+        mine = median_seconds(lambda: [index.closure(x) for x in queries], repeats)
+        other = median_seconds(lambda: [brute.naive_closure(x, fds) for x in queries], repeats)
+        _print_row("closure x200", n, mine, other, notes)
+        for name, ours, theirs, by_subsets in OPERATIONS:
+            mine = median_seconds(lambda: ours(r, fds), repeats)
+            other = None
+            if n <= BRUTE_LIMIT or not by_subsets:
+                other = median_seconds(lambda: theirs(r, fds), 3)
+            _print_row(name, n, mine, other, notes)
         print()
+
+
+def _print_row(name: str, n: int, mine: float, other: float | None, notes: str) -> None:
+    print(f"{name:16} {n:5} {_ms(mine)} {_ms(other):>9} {_ratio(mine, other):>14}  {notes}")
 
 
 def closure_table(repeats: int) -> None:

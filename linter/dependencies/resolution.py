@@ -7,8 +7,8 @@
 For an attribute B, every X -> B and W -> A with B in W give the resolvent X u (W - B) -> A, and
 the dependencies that mention B go: on the remaining attributes the result implies exactly what
 the input did. Attributes that nothing determines or nothing uses go first, all at once (they make
-no resolvent); then the one with the fewest resolvents (in x out). A dependency whose left side holds that of another
-with the same right side is dropped as it comes, so is a trivial one.
+no resolvent); then the one with the fewest resolvents (in x out). A dependency whose left side
+holds that of another with the same right side is dropped as it comes, so is a trivial one.
 """
 from __future__ import annotations
 
