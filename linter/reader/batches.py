@@ -49,6 +49,7 @@ _SQLPLUS_COMMANDS = frozenset(
      "UNDEFINE", "REM", "REMARK", "PAUSE", "ACCEPT", "SET", "SHOW", "COLUMN", "TTITLE", "BTITLE",
      "BREAK", "COMPUTE", "CLEAR", "VARIABLE", "HOST", "STORE", "TIMING"}
 )
+_SQL_AFTER_SET = frozenset({"TRANSACTION", "ROLE", "CONSTRAINT", "CONSTRAINTS"})
 # A quick check before looking for psql meta-commands among the tokens.
 _MAYBE_META_LINE = re.compile(r"^[ \t]*\\", re.MULTILINE)
 # psql's COPY ... FROM stdin reads data rows up to a line holding only '\.': they are not SQL (the
@@ -112,7 +113,7 @@ def _sqlplus_line(tokens: Sequence[Token], i: int, at_start: bool) -> int:
     head = word(token)
     if not at_start or not (head in _SQLPLUS_COMMANDS or head.startswith("@")):
         return 0
-    if head == "SET" and word(token_at(tokens, i + 1)) in ("TRANSACTION", "ROLE", "CONSTRAINT", "CONSTRAINTS"):
+    if head == "SET" and word(token_at(tokens, i + 1)) in _SQL_AFTER_SET:
         return 0  # SQL, not SQL*Plus
     return _rest_of_line(tokens, i)
 
