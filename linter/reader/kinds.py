@@ -4,7 +4,7 @@
 >>> tokens = get_dialect("postgres").tokenize("CREATE OR REPLACE FUNCTION f() RETURNS int")
 >>> object_word(tokens, 0), cannot_change_tables(tokens), opaque_ddl(tokens), describe(tokens)
 ('FUNCTION', True, False, 'CREATE OR REPLACE FUNCTION')
->>> opaque_ddl(get_dialect("postgres").tokenize("ALTER TABLE depots ADD CONSTRAINT depots_pk PRIMARY KEY (id)"))
+>>> opaque_ddl(get_dialect("postgres").tokenize("ALTER TABLE depots ADD PRIMARY KEY (id)"))
 True
 """
 from __future__ import annotations
@@ -24,6 +24,7 @@ __all__ = [
     "describe",
     "is_fragment",
     "names_object",
+    "object_index",
     "object_word",
     "opaque_ddl",
 ]
@@ -54,13 +55,18 @@ _NO_TABLE_STATEMENTS = frozenset(
 )
 
 
+def object_index(tokens: Sequence[Token], i: int) -> int:
+    """The index of the object kind after the CREATE/ALTER/DROP at ``i``, past modifiers (-1: none)."""
+    for k in range(i + 1, min(i + 6, len(tokens))):
+        if word(tokens[k]) not in CREATE_MODIFIERS:
+            return k
+    return -1
+
+
 def object_word(tokens: Sequence[Token], i: int) -> str:
     """The object kind after the CREATE/ALTER/DROP at ``i``, past modifiers ('' when none)."""
-    for token in tokens[i + 1 : i + 6]:
-        following = word(token)
-        if following not in CREATE_MODIFIERS:
-            return following
-    return ""
+    k = object_index(tokens, i)
+    return word(tokens[k]) if k >= 0 else ""
 
 
 def names_object(tokens: Sequence[Token], i: int) -> bool:

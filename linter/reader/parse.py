@@ -26,6 +26,7 @@ from sqlglot.tokens import Token, TokenType
 from linter.model import Finding
 from linter.reader.kinds import cannot_change_tables, describe, is_fragment, opaque_ddl
 from linter.reader.nesting import nesting
+from linter.reader.object_kinds import unknown_object_kind
 from linter.reader.read_state import ReadState
 from linter.reader.script import Statement
 from linter.reader.slices import cut_at_semicolons, restart_points
@@ -139,16 +140,25 @@ def _parse(state: ReadState, tokens: list[Token], terminator: Token | None) -> S
         message = f"sqlglot could not read this {describe(tokens)} statement ({error!s:.80})"
         statement.problem = Finding("syntax-error", "error", statement.span, message)
         return statement
-    _classify(statement, parsed, tokens)
+    _classify(state, statement, parsed, tokens)
     return statement
 
 
-def _classify(statement: Statement, parsed: list[exp.Expression], tokens: Sequence[Token]) -> None:
-    """Set the statement's expression and kind from what sqlglot parsed (see ``Statement``)."""
+def _classify(
+    state: ReadState, statement: Statement, parsed: list[exp.Expression], tokens: Sequence[Token]
+) -> None:
+    """Set the statement's expression and kind from what sqlglot parsed (see ``Statement``).
+
+    A command whose CREATE/ALTER/DROP names no object kind the dialect knows is an error there.
+    """
     if not parsed:
         statement.kind = "command"
         return
     expression = parsed[0]
+    if isinstance(expression, exp.Command):
+        statement.problem = unknown_object_kind(tokens, state.dialect, state.lines)
+        if statement.problem is not None:
+            return  # still kind "error", without an expression
     statement.expression = expression
     if len(parsed) > 1 and not isinstance(expression, exp.Command):
         statement.kind = "merged"  # a BEGIN ... END guess joined statements: the caller cuts
