@@ -38,7 +38,8 @@ class Statement:
     - ``"ast"``: a real expression tree;
     - ``"opaque"``: an ``exp.Command`` for DDL the linter needs (CREATE TABLE, CREATE UNIQUE INDEX,
       ALTER TABLE ... ADD/DROP/RENAME, MySQL RENAME TABLE), so ``opaque`` is True;
-    - ``"error"``: could not be parsed; ``expression`` is None and ``problem`` says why;
+    - ``"error"``: could not be parsed, or names an object kind the dialect does not know
+      (``CREATE TABEL``); ``expression`` is None and ``problem`` says why;
     - ``"unparsed"``: the same for a statement that cannot change a table (function, trigger,
       view, grant ...), reported as a note;
     - ``"command"``: any other ``exp.Command`` (functions, triggers, OWNER TO ...);
