@@ -9,6 +9,7 @@ from linter.dependencies import (
     bcnf_decompose,
     chase_is_lossless,
     minimal_cover,
+    normal_form,
     preserves_dependencies,
     synthesize_3nf,
 )
@@ -54,6 +55,8 @@ def test_bcnf_decomposition(relation: tuple[int, list[FD]]) -> None:
     result = bcnf_decompose(r, fds)
     for piece in _check_pieces(r, fds, result):
         assert oracle_form(piece, fds) == "BCNF"
+    for piece in result.pieces:
+        assert normal_form(piece.attrs, piece.fds).form == "BCNF"
     assert bcnf_decompose(r, list(reversed(fds))) == result
 
 
@@ -64,7 +67,10 @@ def test_3nf_synthesis(relation: tuple[int, list[FD]]) -> None:
     result = synthesize_3nf(r, fds)
     for piece in _check_pieces(r, fds, result):
         assert oracle_form(piece, fds) in ("3NF", "BCNF")
+    for piece in result.pieces:
+        assert normal_form(piece.attrs, piece.fds).form in ("3NF", "BCNF")
     assert result.lost == ()
+    assert synthesize_3nf(r, list(reversed(fds))) == result
 
 
 @THEORY
@@ -74,3 +80,10 @@ def test_preserved_dependencies_against_the_union_of_projections(
 ) -> None:
     r, fds, pieces = case
     assert list(preserves_dependencies(fds, pieces)) == _oracle_lost(fds, pieces)
+
+
+def test_relation_without_attributes() -> None:
+    assert bcnf_decompose(0, []).pieces[0].keys == (0,)
+    assert [piece.attrs for piece in synthesize_3nf(0, []).pieces] == [0]
+    assert normal_form(0, []).form == "BCNF"
+    assert chase_is_lossless(0, [], [0]).lossless

@@ -63,6 +63,11 @@ def test_key_bound_stops_the_search_on_twenty_pairs() -> None:
     assert all(naive_closure(key, _pairs(20)) == r for key in search.keys)
 
 
+def test_default_bounds_hold_on_twenty_pairs() -> None:
+    search = candidate_keys((1 << 40) - 1, _pairs(20))
+    assert not search.complete and 0 < len(search.keys) <= 1000
+
+
 def test_time_limit_stops_the_search_on_twenty_pairs() -> None:
     search = candidate_keys((1 << 40) - 1, _pairs(20), max_keys=10**9, time_limit=0.05)
     assert not search.complete

@@ -1,18 +1,15 @@
 """Projections of F+ onto subsets, by both methods, against enumeration of the subsets."""
 from __future__ import annotations
 
-import sys
-
 from hypothesis import given
 from hypothesis import strategies as st
 
 from linter.dependencies import FD, ClosureIndex, minimal_cover, project
+from linter.dependencies.project import project_by_subsets
+from linter.dependencies.resolution import eliminate
 
 from .oracle import bits_of, implied_on, naive_closure
 from .strategies import THEORY, relations
-
-_project_module = sys.modules["linter.dependencies.project"]
-_resolution = sys.modules["linter.dependencies.resolution"]
 
 
 def _holds(fds: list[FD], found: tuple[FD, ...] | list[FD], s: int) -> bool:
@@ -31,7 +28,7 @@ def test_projection_is_a_minimal_cover_of_f_plus_on_s(
     s = data.draw(st.integers(0, r))
     for projection in (
         project(fds, s),
-        _project_module.project_by_subsets(ClosureIndex(fds), s),
+        project_by_subsets(ClosureIndex(fds), s),
     ):
         assert projection.complete
         assert _holds(fds, projection.fds, s)
@@ -47,7 +44,7 @@ def test_resolution_keeps_exactly_what_holds_on_the_rest(
     r, fds = relation
     gone = data.draw(st.integers(0, r))
     single = [FD(lhs, a) for lhs, rhs in fds for a in bits_of(rhs & ~lhs)]
-    eliminated = _resolution.eliminate(single, gone, 1 << 16)
+    eliminated = eliminate(single, gone, 1 << 16)
     assert eliminated is not None
     assert _holds(fds, eliminated, r & ~gone)
     assert implied_on(fds, r & ~gone, eliminated)
@@ -61,7 +58,7 @@ def test_subset_bound_gives_a_sound_partial_projection(
     r, fds = relation
     s = data.draw(st.integers(0, r))
     bound = data.draw(st.integers(1, 6))
-    partial = _project_module.project_by_subsets(ClosureIndex(fds), s, max_subsets=bound)
+    partial = project_by_subsets(ClosureIndex(fds), s, max_subsets=bound)
     assert _holds(fds, partial.fds, s)
     if partial.complete:
         assert implied_on(fds, s, partial.fds)
