@@ -22,6 +22,7 @@ def test_chase_verdict_and_counterexample(
     assert result.lossless == chase_lossless(r, fds, pieces)
     assert len(result.tableau) == len(pieces)
     assert all(len(row) == len(columns) for row in result.tableau)
+    assert satisfies(result.tableau, fds, columns)  # the chase ends where F holds
     if len(pieces) == 2:
         common = pieces[0] & pieces[1]
         determined = naive_closure(common, fds)
