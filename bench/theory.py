@@ -70,13 +70,15 @@ def random_sets(n: int, m: int, seed: int) -> list[FD]:
     return fds
 
 
-def median_seconds(run: Callable[[], object], repeats: int) -> float:
-    """The median wall time of ``repeats`` runs."""
+def median_seconds(
+    run: Callable[[], object], repeats: int, clock: Callable[[], float] = time.perf_counter
+) -> float:
+    """The median time of ``repeats`` runs: wall time, or CPU time with ``time.process_time``."""
     times = []
     for _ in range(repeats):
-        started = time.perf_counter()
+        started = clock()
         run()
-        times.append(time.perf_counter() - started)
+        times.append(clock() - started)
     return statistics.median(times)
 
 
@@ -159,6 +161,7 @@ def full_analysis(repeats: int) -> None:
     """Keys, normal form and both decompositions of 64-attribute, 128-dependency relations."""
     print("full analysis, 64 attributes, 128 dependencies (keys, normal form, BCNF, 3NF):")
     medians = []
+    cpu_medians = []
     for seed in range(1, 6):
         r, fds = generated_relation(64, seed)
 
@@ -169,12 +172,16 @@ def full_analysis(repeats: int) -> None:
             synthesize_3nf(r, fds)
 
         median = median_seconds(analyse, repeats)
+        cpu = median_seconds(analyse, repeats, time.process_time)
         medians.append(median)
+        cpu_medians.append(cpu)
         keys = candidate_keys(r, fds)
         pieces = len(bcnf_decompose(r, fds).pieces), len(synthesize_3nf(r, fds).pieces)
-        print(f"  seed {seed}: {median * 1000:7.1f} ms median   {len(keys.keys)} key(s), complete"
-              f" {keys.complete}; BCNF {pieces[0]} pieces, 3NF {pieces[1]} pieces")
-    print(f"  median over the seeds: {statistics.median(medians) * 1000:.1f} ms (goal: under 50 ms)")
+        print(f"  seed {seed}: {median * 1000:6.1f} ms median ({cpu * 1000:5.1f} ms CPU)"
+              f"   {len(keys.keys)} key(s), complete {keys.complete};"
+              f" BCNF {pieces[0]} pieces, 3NF {pieces[1]} pieces")
+    print(f"  median over the seeds: {statistics.median(medians) * 1000:.1f} ms"
+          f" ({statistics.median(cpu_medians) * 1000:.1f} ms CPU; goal: under 50 ms)")
 
 
 def main() -> None:

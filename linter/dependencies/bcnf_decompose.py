@@ -55,7 +55,7 @@ def bcnf_decompose(r: int, fds: Sequence[tuple[int, int]]) -> Decomposition:
         work.append(determined)
     kept = drop_contained([piece.attrs for piece in pieces])
     chosen = tuple(piece for piece in pieces if piece.attrs in kept)
-    return Decomposition(chosen, not_preserved(cover, closures.index, kept))
+    return Decomposition(chosen, not_preserved(cover, closures.of, kept))
 
 
 class _Closures:

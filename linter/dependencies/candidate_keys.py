@@ -12,9 +12,11 @@ Start from one key, found by dropping attributes from R while the rest stays a s
 key K found and every X -> Y, the set X u (K - Y) is a superkey; unless it contains a key already
 found, it is reduced to a new key. Every key is reached this way, and the work grows with the
 number of keys times |F|, not with 2^|R| (n independent pairs a <-> b have 2^n keys, so the search
-is bounded by ``max_keys`` and ``time_limit`` seconds and then says ``complete=False``).
+is bounded by ``max_keys`` and ``time_limit`` seconds, or None for no limit, and then says
+``complete=False``; the keys found so far are returned).
 
-The dependencies must mention only attributes of r (ValueError otherwise; use ``project``).
+The dependencies must mention only attributes of r (ValueError otherwise; use ``project``);
+``is_superkey`` takes dependencies over any attributes.
 Keys come sorted by size, then by attribute positions. Reduction drops attributes from the last
 column backwards, so the first key found keeps the leading columns where it can.
 """
@@ -50,6 +52,8 @@ def candidate_keys(
     keys = [reducer.reduce(r)]
     done = 0
     while done < len(keys):
+        if _past(deadline):
+            return KeySearch(_sorted(keys), False)
         key = keys[done]
         done += 1
         for lhs, rhs in nontrivial:

@@ -31,7 +31,8 @@ class Decomposition(NamedTuple):
 
 
 def make_piece(attrs: int, fds: Sequence[FD]) -> Piece:
-    """A piece with the keys of ``attrs`` under ``fds`` (its projected cover)."""
+    """A piece with the keys of ``attrs`` under ``fds`` (its projected cover), as many as
+    ``candidate_keys`` finds within its default bounds."""
     return Piece(attrs, candidate_keys(attrs, fds).keys, tuple(fds))
 
 

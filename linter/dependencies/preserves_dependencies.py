@@ -13,7 +13,7 @@ under the union of the projections, computed without computing them, in polynomi
 """
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 
 from .closure import ClosureIndex
 from .fd import FD
@@ -25,17 +25,17 @@ def preserves_dependencies(
 ) -> tuple[FD, ...]:
     """The dependencies of the minimal cover of ``fds`` that the pieces do not preserve."""
     cover = minimal_cover(fds)
-    return not_preserved(cover, ClosureIndex(cover), pieces)
+    return not_preserved(cover, ClosureIndex(cover).closure, pieces)
 
 
 def not_preserved(
-    fds: Sequence[FD], index: ClosureIndex, pieces: Sequence[int]
+    fds: Sequence[FD], closure_of: Callable[[int], int], pieces: Sequence[int]
 ) -> tuple[FD, ...]:
-    """The dependencies of ``fds`` (indexed, with their equivalents, in ``index``) not preserved."""
-    return tuple(fd for fd in fds if not _preserved(fd, index, pieces))
+    """The dependencies of ``fds`` not preserved; ``closure_of`` gives closures under them."""
+    return tuple(fd for fd in fds if not _preserved(fd, closure_of, pieces))
 
 
-def _preserved(fd: FD, index: ClosureIndex, pieces: Sequence[int]) -> bool:
+def _preserved(fd: FD, closure_of: Callable[[int], int], pieces: Sequence[int]) -> bool:
     """Whether the projections onto the pieces together imply ``fd``."""
     if any(not (fd.lhs | fd.rhs) & ~piece for piece in pieces):
         return True  # it holds within one piece
@@ -48,7 +48,7 @@ def _preserved(fd: FD, index: ClosureIndex, pieces: Sequence[int]) -> bool:
             if z & piece == seen[i]:
                 continue
             seen[i] = z & piece
-            gained = index.closure(z & piece) & piece & ~z
+            gained = closure_of(z & piece) & piece & ~z
             if gained:
                 z |= gained
                 grew = True

@@ -36,4 +36,4 @@ def synthesize_3nf(r: int, fds: Sequence[tuple[int, int]]) -> Decomposition:
         schemas.append(candidate_keys(r, cover, max_keys=1).keys[0])
     kept = drop_contained(schemas)
     pieces = tuple(make_piece(schema, project_with(index, schema).fds) for schema in kept)
-    return Decomposition(pieces, not_preserved(minimal, index, kept))
+    return Decomposition(pieces, not_preserved(minimal, index.closure, kept))
