@@ -7,10 +7,11 @@
 ([3, 6], ())
 
 One relation X u Y for each X -> Y of the canonical cover, in its order; when none of them holds
-a candidate key of r, the first key (``candidate_keys`` order) is added as a last relation; then a
-relation contained in another is dropped (of equal ones the first stays). Each piece carries its
-keys and a cover of its projected dependencies. ``lost`` is computed, and is empty. The
-dependencies must mention only attributes of r.
+a candidate key of r, one is added as a last relation (r reduced to a key from the last column
+backwards, the key ``candidate_keys`` finds first); then a relation contained in another is
+dropped (of equal ones the first stays). Each piece carries its keys and a cover of its projected
+dependencies. ``lost`` is computed, and is empty. The dependencies must mention only attributes
+of r.
 """
 from __future__ import annotations
 
