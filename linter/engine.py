@@ -31,6 +31,7 @@ from linter.fingerprint import fingerprint
 from linter.model import Catalog, Finding
 from linter.reader import read_catalog
 from linter.reader.names import parse_table_name
+from linter.reader.sources import display_path
 from linter.rule import Context, Rule
 from rules import all_rules
 
@@ -78,7 +79,7 @@ def run(
         found += [_leveled(f, allow_rule, config) for f in _unknown_allows(catalog)]
     kept, suppressed = _suppress(found, catalog)
     if report_paths is not None:
-        wanted = [_shown(path) for path in report_paths]
+        wanted = [display_path(path) for path in report_paths]
         kept = [f for f in kept if _located_in(f.span.path, wanted)]
         suppressed = [f for f in suppressed if _located_in(f.span.path, wanted)]
     return Result(catalog, _finished(kept), _finished(suppressed), analyses, rules)
@@ -146,11 +147,6 @@ def _suppress(findings: list[Finding], catalog: Catalog) -> tuple[list[Finding],
         is_allowed = finding.rule in allowed.get(finding.table or "", ())
         (suppressed if is_allowed else kept).append(finding)
     return kept, suppressed
-
-
-def _shown(path: str) -> str:
-    """A path as findings write it: relative to the working directory, forward slashes."""
-    return os.path.relpath(path).replace(os.sep, "/")
 
 
 def _located_in(path: str, wanted: list[str]) -> bool:

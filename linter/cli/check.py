@@ -15,13 +15,9 @@ from linter.cli.show_rules import unknown_rule
 from linter.config import Config, load_config
 from linter.config_check import FAIL_LEVELS, TARGETS
 from linter.engine import run
+from linter.reader.sources import display_path
 from linter.reporters import FORMATS, render
 from rules import all_rules
-
-
-def relative(path: str) -> str:
-    """``path`` relative to the working directory with forward slashes, as spans carry it."""
-    return os.path.relpath(path).replace(os.sep, "/")
 
 
 def existing(paths: tuple[str, ...] | list[str], what: str) -> list[str]:
@@ -29,7 +25,7 @@ def existing(paths: tuple[str, ...] | list[str], what: str) -> list[str]:
     for path in paths:
         if not os.path.exists(path):
             raise Failure(f"{path}: no such file or directory ({what})")
-    return [relative(path) for path in paths]
+    return [display_path(path) for path in paths]
 
 
 def _inside(path: str, folder: str) -> bool:
@@ -126,7 +122,7 @@ def check(
             text = render(fmt, result, color=colored, exit_code=code)
         else:
             text = baseline_report(fmt, result, comparison, baseline_path, color=colored, exit_code=code)
-        if output is not None and relative(output) in result.catalog.files:
+        if output is not None and display_path(output) in result.catalog.files:
             raise Failure(f"{output}: refusing to write the report over a SQL file that was just read")
         write_report(text, output)
         return code

@@ -19,7 +19,7 @@ from click.testing import CliRunner
 
 from linter.cli.main import main
 
-from browser import console_messages, load, png_size
+from .browser import console_messages, load, png_size
 
 _MEASURE = """<script>
 (function () {

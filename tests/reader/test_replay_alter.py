@@ -1,7 +1,7 @@
 """ALTER TABLE forms: columns, NOT NULL, constraints added and dropped, renames, MySQL MODIFY/CHANGE."""
 from __future__ import annotations
 
-from replay_support import keys, read_fixture, replay_sql, uniques
+from .replay_support import keys, read_fixture, replay_sql, uniques
 
 
 def test_postgres_alter_forms_from_the_courier_migrations() -> None:

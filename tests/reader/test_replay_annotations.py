@@ -2,7 +2,7 @@
 from __future__ import annotations
 
 from linter.model import Dependency, Span
-from replay_support import located, read_fixture, replay_sql
+from .replay_support import located, read_fixture, replay_sql
 
 
 def test_annotations_above_inside_and_naming_their_table() -> None:

@@ -5,7 +5,7 @@ import importlib
 
 import pytest
 
-from replay_support import keys, located, replay_sql
+from .replay_support import keys, located, replay_sql
 
 replay_module = importlib.import_module("linter.reader.replay")
 

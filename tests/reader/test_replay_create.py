@@ -1,7 +1,7 @@
 """CREATE TABLE in four dialects: columns, nullability, keys inline and table-level, foreign keys, checks."""
 from __future__ import annotations
 
-from replay_support import keys, read_fixture, replay_sql, uniques
+from .replay_support import keys, read_fixture, replay_sql, uniques
 
 
 def test_postgres_columns_keys_and_references() -> None:

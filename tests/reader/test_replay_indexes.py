@@ -1,7 +1,7 @@
 """CREATE UNIQUE INDEX and DROP INDEX: plain keys, partial and expression indexes, drops by name."""
 from __future__ import annotations
 
-from replay_support import keys, located, read_fixture, replay_sql, uniques
+from .replay_support import keys, located, read_fixture, replay_sql, uniques
 
 
 def test_partial_and_expression_indexes_are_kept_but_are_not_keys() -> None:

@@ -1,7 +1,7 @@
 """Column lineage of CREATE TABLE ... AS SELECT, SELECT ... INTO and INSERT INTO ... SELECT."""
 from __future__ import annotations
 
-from replay_support import replay_sql
+from .replay_support import replay_sql
 
 _COURIERS = "CREATE TABLE couriers (id int PRIMARY KEY, name text NOT NULL, depot text, city text);\n"
 

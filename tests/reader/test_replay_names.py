@@ -1,7 +1,7 @@
 """Identifier folding, quoting and schema-qualified names, per dialect."""
 from __future__ import annotations
 
-from replay_support import keys, read_fixture, replay_sql
+from .replay_support import keys, read_fixture, replay_sql
 
 
 def test_postgres_folds_unquoted_names_and_keeps_quoted_ones() -> None:

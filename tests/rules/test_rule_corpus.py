@@ -5,7 +5,7 @@ from __future__ import annotations
 from pathlib import Path
 
 import pytest
-from rule_helpers import of_rule
+from .rule_helpers import of_rule
 
 from linter.config import Config
 from linter.engine import Result, run

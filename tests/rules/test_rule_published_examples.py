@@ -13,7 +13,7 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from rule_helpers import of_rule
+from .rule_helpers import of_rule
 
 from linter.config import Config, load_config
 from linter.engine import run

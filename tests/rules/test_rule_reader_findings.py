@@ -3,7 +3,7 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from rule_helpers import places
+from .rule_helpers import places
 
 from linter.config import Config
 from linter.engine import run

@@ -4,7 +4,7 @@ from __future__ import annotations
 from pathlib import Path
 
 import pytest
-from rule_helpers import of_rule, places
+from .rule_helpers import of_rule, places
 
 from linter.config import Config
 from linter.engine import run

@@ -4,7 +4,7 @@ from __future__ import annotations
 from collections.abc import Callable
 
 import pytest
-from split_support import FIXTURES, ROOT, dialect_of
+from .split_support import FIXTURES, ROOT, dialect_of
 
 from linter.config import Config
 from linter.engine import Result, run

@@ -3,7 +3,7 @@ from __future__ import annotations
 
 import pytest
 from click.testing import CliRunner
-from split_support import FIXTURES, ROOT, dialect_of
+from .split_support import FIXTURES, ROOT, dialect_of
 
 from linter.cli.main import main
 

@@ -4,7 +4,7 @@ from __future__ import annotations
 from pathlib import Path
 
 import pytest
-from split_support import FIXTURES, ROOT, split_findings
+from .split_support import FIXTURES, ROOT, split_findings
 
 from linter.config import Config
 from linter.engine import run

@@ -28,8 +28,8 @@ from dataclasses import dataclass
 from itertools import combinations
 
 import pytest
-from split_oracle import closure, join_of_projections, lossy_counterexample, satisfies, unpreserved
-from split_support import FIXTURES, ROOT, dialect_of
+from .split_oracle import closure, join_of_projections, lossy_counterexample, satisfies, unpreserved
+from .split_support import FIXTURES, ROOT, dialect_of
 
 from linter.dependencies import normal_form
 from linter.model import Dependency, Span, Split, SplitPiece

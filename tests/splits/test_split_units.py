@@ -2,7 +2,7 @@
 from __future__ import annotations
 
 import pytest
-from split_oracle import lossy_counterexample
+from .split_oracle import lossy_counterexample
 
 from linter.dependencies import Projection
 from linter.explain_split import split_lines
