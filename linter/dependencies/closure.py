@@ -70,13 +70,15 @@ class ClosureIndex:
         a = 0  # the virtual attribute first, then each attribute as it enters the closure
         while True:
             for i in users.get(a, ()):
-                unmet[i] -= 1
-                if unmet[i] == 0 and rhs[i] & ~result:
+                left = unmet[i] - 1
+                unmet[i] = left
+                if not left:
                     added = rhs[i] & ~result
-                    result |= added
-                    pending |= added
-                    if fired is not None:
-                        fired.append((i, added))
+                    if added:
+                        result |= added
+                        pending |= added
+                        if fired is not None:
+                            fired.append((i, added))
             if not pending or not goal & ~result:
                 return result
             a = pending & -pending

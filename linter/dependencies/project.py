@@ -41,14 +41,35 @@ def project(
 
 def project_with(index: ClosureIndex, s: int, *, max_subsets: int = 1 << 16) -> Projection:
     """``project`` over dependencies already indexed, for many projections of one set."""
+    derivable = 0  # the attributes of s that others of s determine: the only right sides
+    for a in members(s):
+        if index.implies(s & ~a, a):
+            derivable |= a
+    if not derivable:
+        return Projection((), True)
     reach = index.closure(s)
     gone = reach & ~s
     if 1 << s.bit_count() > gone.bit_count():
         relevant = split_rhs((lhs, rhs) for lhs, rhs in index.fds if not lhs & ~reach)
-        eliminated = eliminate(relevant, gone, max_subsets)
+        eliminated = eliminate(_leading_to(relevant, derivable, s), gone, max_subsets)
         if eliminated is not None:
             return Projection(tuple(minimal_cover(eliminated)), True)
     return project_by_subsets(index, s, max_subsets=max_subsets)
+
+
+def _leading_to(fds: list[FD], derivable: int, s: int) -> list[FD]:
+    """The dependencies that can take part in deriving an attribute of ``derivable``: those with
+    the right side in it, or on the left of one of those (outside s - derivable, whose attributes
+    are never derived), and so on."""
+    needed = derivable
+    grew = True
+    while grew:
+        grew = False
+        for fd in fds:
+            if fd.rhs & needed and fd.lhs & ~needed & ~s:
+                needed |= fd.lhs & ~s
+                grew = True
+    return [fd for fd in fds if fd.rhs & needed]
 
 
 def project_by_subsets(
