@@ -4,15 +4,17 @@
 >>> project([FD(0b001, 0b010), FD(0b010, 0b100)], 0b101)
 Projection(fds=(FD(lhs=1, rhs=4),), complete=True)
 
-Two ways, both exact. Only dependencies with left side in S+ act on closures of subsets of S, so
-the others are left out, and the attributes of S+ - S are eliminated by resolution (``eliminate``);
-that takes |S+ - S| steps and is fast unless resolvents multiply. Or the closures of the subsets
-of S are taken, level by level, skipping each subset that holds a superkey of S and each Y with an
-attribute B in (Y - B)+ (such a Y says nothing its subsets do not); that takes up to 2^|S|
-closures. The subsets go first when 2^|S| <= |S+ - S|, and also when the resolution makes more
-than ``max_subsets`` resolvents; ``max_subsets`` bounds the subsets visited too, and when that is
-reached the result holds on S but may not imply all that does: ``complete`` is False. The result
-is a minimal cover, in ``minimal_cover`` order.
+Only an attribute A of S with A in (S - A)+ can be a right side (any other is never derived from
+the rest of S); with none, the projection is empty. Then one of two ways, both exact. Only
+dependencies with left side in S+ act on closures of subsets of S, and only those that can lead
+to such an A matter; the attributes of S+ - S are eliminated from them by resolution
+(``eliminate``), which takes |S+ - S| steps and is fast unless resolvents multiply. Or the
+closures of the subsets of S are taken, level by level, skipping each subset that holds a superkey
+of S and each Y with an attribute B in (Y - B)+ (such a Y says nothing its subsets do not), up to
+2^|S| closures. The subsets go first when 2^|S| <= |S+ - S|, and also when the resolution makes
+more than ``max_subsets`` resolvents; ``max_subsets`` bounds the subsets visited too, and when that
+is reached the result holds on S but may not imply all that does: ``complete`` is False. The
+result is a minimal cover, in ``minimal_cover`` order.
 """
 from __future__ import annotations
 
