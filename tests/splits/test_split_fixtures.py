@@ -128,8 +128,20 @@ def test_split_over_two_files_is_reported_only_with_both_files(check) -> None:
     assert [f.rule for f in split_findings(check(case))] == ["lossy-split", "unenforceable-dependency"]
 
 
-def test_allow_on_a_shrunk_original_moves_its_findings_to_suppressed(tmp_path: Path, monkeypatch) -> None:
-    """The original still exists when the split only dropped columns, so its allow annotation applies."""
+_SPLITS_OF_COURIERS = {
+    # the original still exists: the split only dropped a column
+    "shrunk": "CREATE TABLE courier_cities AS SELECT courier_id, city FROM couriers;\n"
+              "ALTER TABLE couriers DROP COLUMN city;\n",
+    # the original is gone: a split's findings still belong to it
+    "dropped": "CREATE TABLE courier_depots AS SELECT courier_id, depot FROM couriers;\n"
+               "CREATE TABLE courier_cities AS SELECT courier_id, city FROM couriers;\n"
+               "DROP TABLE couriers;\n",
+}
+
+
+@pytest.mark.parametrize("how", sorted(_SPLITS_OF_COURIERS))
+def test_allow_on_the_original_moves_split_findings_to_suppressed(how: str, tmp_path: Path, monkeypatch) -> None:
+    """The original's allow annotation applies to its split, whether it was shrunk or dropped."""
     monkeypatch.chdir(tmp_path)
     (tmp_path / "001_couriers.sql").write_text(
         "CREATE TABLE couriers (\n"
@@ -139,30 +151,7 @@ def test_allow_on_a_shrunk_original_moves_its_findings_to_suppressed(tmp_path: P
         "    -- normguard: fd depot -> city\n"
         "    -- normguard: allow unenforceable-dependency: a trigger on courier_cities checks it\n"
         ");\n", encoding="utf-8")
-    (tmp_path / "002_cities.sql").write_text(
-        "CREATE TABLE courier_cities AS SELECT courier_id, city FROM couriers;\n"
-        "ALTER TABLE couriers DROP COLUMN city;\n", encoding="utf-8")
-    result = run(Config(paths=(".",)))
-    assert split_findings(result) == []
-    assert [(f.rule, f.dependency) for f in result.suppressed] == [
-        ("unenforceable-dependency", (("depot",), ("city",)))]
-
-
-def test_allow_on_a_dropped_original_moves_its_findings_to_suppressed(tmp_path: Path, monkeypatch) -> None:
-    """A split's findings belong to its original; the allow on it applies after the original is dropped."""
-    monkeypatch.chdir(tmp_path)
-    (tmp_path / "001_couriers.sql").write_text(
-        "CREATE TABLE couriers (\n"
-        "    courier_id integer PRIMARY KEY,\n"
-        "    depot text NOT NULL,\n"
-        "    city text NOT NULL\n"
-        "    -- normguard: fd depot -> city\n"
-        "    -- normguard: allow unenforceable-dependency: a trigger on courier_cities checks it\n"
-        ");\n", encoding="utf-8")
-    (tmp_path / "002_cities.sql").write_text(
-        "CREATE TABLE courier_depots AS SELECT courier_id, depot FROM couriers;\n"
-        "CREATE TABLE courier_cities AS SELECT courier_id, city FROM couriers;\n"
-        "DROP TABLE couriers;\n", encoding="utf-8")
+    (tmp_path / "002_cities.sql").write_text(_SPLITS_OF_COURIERS[how], encoding="utf-8")
     result = run(Config(paths=(".",)))
     assert split_findings(result) == []
     assert [(f.rule, f.dependency) for f in result.suppressed] == [
