@@ -21,7 +21,6 @@ from __future__ import annotations
 
 import dataclasses
 import difflib
-import os
 from collections.abc import Callable, Collection, Iterable, Sequence
 from dataclasses import dataclass
 

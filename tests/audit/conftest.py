@@ -5,10 +5,8 @@ from collections.abc import Iterator
 from pathlib import Path
 
 import pytest
-from click.testing import CliRunner
 
-ROOT = Path(__file__).resolve().parents[2]
-SHARED = ROOT.parent / "shared"
+from ..locations import SHARED
 
 SEED_BANK = {
     "001_seed_lots.sql": """-- Seed lots kept by a community seed bank (an invented scenario).
@@ -51,12 +49,6 @@ def seed_bank(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Iterator[Path]
         (folder / name).write_text(text, encoding="utf-8")
     monkeypatch.chdir(tmp_path)
     yield folder
-
-
-@pytest.fixture
-def runner() -> CliRunner:
-    """click's in-process runner."""
-    return CliRunner()
 
 
 @pytest.fixture

@@ -8,11 +8,10 @@ from collections.abc import Callable, Iterator
 from pathlib import Path
 
 import pytest
-from click.testing import CliRunner
 
-ROOT = Path(__file__).resolve().parents[2]
+from ..locations import ROOT
+
 EXAMPLE = ROOT / "examples" / "courier"
-SHARED = ROOT.parent / "shared"
 
 
 @pytest.fixture
@@ -26,12 +25,6 @@ def example(tmp_path: Path, monkeypatch: pytest.MonkeyPatch) -> Iterator[Path]:
 
 
 @pytest.fixture
-def runner() -> CliRunner:
-    """click's in-process runner."""
-    return CliRunner()
-
-
-@pytest.fixture
 def script() -> str:
     """The installed ``normguard`` console script (beside this interpreter, else on PATH)."""
     beside = Path(sys.executable).with_name("normguard")
@@ -39,14 +32,6 @@ def script() -> str:
     if found is None:
         pytest.skip("the normguard console script is not installed (pip install -e '.[test]')")
     return found
-
-
-@pytest.fixture
-def shared() -> Path:
-    """../shared beside the checkout; tests that need it skip with a message when it is absent."""
-    if not (SHARED / "standards").is_dir():
-        pytest.skip(f"../shared/standards is not there (looked in {SHARED.name}/ beside the checkout)")
-    return SHARED
 
 
 def _without_no_color(**extra: str) -> dict[str, str]:

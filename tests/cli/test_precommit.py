@@ -18,7 +18,7 @@ from pathlib import Path
 
 import pytest
 
-ROOT = Path(__file__).resolve().parents[2]
+from ..locations import ROOT
 
 SETTINGS = "paths: [db]\nmigrations: db\ndialect: postgres\n"
 DEPOTS = """CREATE TABLE depots (

@@ -2,11 +2,11 @@
 from __future__ import annotations
 
 import re
-from pathlib import Path
 
 from linter.config import load_config
 
-ROOT = Path(__file__).resolve().parents[2]
+from ..locations import ROOT
+
 README = (ROOT / "README.md").read_text(encoding="utf-8")
 
 

@@ -9,7 +9,8 @@ from linter.config import Config, TableSettings
 from linter.engine import run, selected_rules
 from rules import all_rules
 
-ROOT = Path(__file__).resolve().parents[2]
+from ..locations import ROOT
+
 ALLOWED = "fixtures/rules/allow/postgres_allowed.sql"
 
 

@@ -10,9 +10,9 @@ from linter.reader.replay import ScriptFile, replay
 from linter.reader.sources import Source
 from linter.reader.statements import split_file
 
-ROOT = Path(__file__).resolve().parents[2]
+from ..locations import ROOT
+
 FIXTURES = ROOT / "fixtures" / "reader"
-SHARED = ROOT.parent / "shared"
 
 
 def read_fixture(dialect: str, scenario: str) -> Catalog:

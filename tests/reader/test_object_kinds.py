@@ -14,6 +14,7 @@ from sqlglot import exp
 
 from linter.reader.sources import Source
 from linter.reader.statements import Script, split_file
+
 from .replay_support import replay_sql
 
 

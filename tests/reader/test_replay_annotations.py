@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 from linter.model import Dependency, Span
+
 from .replay_support import located, read_fixture, replay_sql
 
 

@@ -19,7 +19,8 @@ from linter.reader import read_catalog
 from linter.reader.replay import ScriptFile, replay
 from linter.reader.sources import discover_files, read_source
 from linter.reader.statements import split_file
-from .replay_support import SHARED
+
+from ..locations import SHARED
 
 CORPUS = SHARED / "corpus"
 AUTHELIA = CORPUS / "authelia" / "internal" / "storage" / "migrations"  # V0001.Name.up.sql per dialect

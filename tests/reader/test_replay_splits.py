@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 from linter.model import Split
+
 from .replay_support import read_fixture, replay_sql
 
 

@@ -1,15 +1,12 @@
 """Hand-made results for the reporter tests: tricky paths, messages and spans, no SQL involved."""
 from __future__ import annotations
 
-from pathlib import Path
 from types import SimpleNamespace
 
 import pytest
 
 from linter.model import Catalog, Finding, Span, Table
 from linter.rule import Rule
-
-SHARED = Path(__file__).resolve().parents[2].parent / "shared"
 
 
 def _rule(rule_id: str, severity: str, summary: str) -> Rule:
@@ -62,12 +59,6 @@ def make_result(findings: list[Finding] | None = None) -> SimpleNamespace:
         analyses={},
         rules=RULES,
     )
-
-
-@pytest.fixture
-def shared() -> Path:
-    """The ../shared folder beside the checkout (the reference standards and corpus)."""
-    return SHARED
 
 
 @pytest.fixture

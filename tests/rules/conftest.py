@@ -2,14 +2,14 @@
 from __future__ import annotations
 
 from collections.abc import Callable
-from pathlib import Path
 
 import pytest
 
 from linter.config import Config
 from linter.engine import Result, run
 
-ROOT = Path(__file__).resolve().parents[2]
+from ..locations import ROOT
+
 FIXTURES = "fixtures/rules"
 
 Check = Callable[..., Result]

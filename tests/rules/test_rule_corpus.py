@@ -5,12 +5,13 @@ from __future__ import annotations
 from pathlib import Path
 
 import pytest
-from .rule_helpers import of_rule
 
 from linter.config import Config
 from linter.engine import Result, run
 
-ROOT = Path(__file__).resolve().parents[2]
+from ..locations import ROOT
+from .rule_helpers import of_rule
+
 CORPUS = ROOT.parent / "shared" / "corpus"
 
 

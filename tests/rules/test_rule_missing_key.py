@@ -2,6 +2,7 @@
 from __future__ import annotations
 
 import pytest
+
 from .rule_helpers import of_rule, places
 
 RULE = "missing-key"

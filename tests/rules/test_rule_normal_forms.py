@@ -2,10 +2,11 @@
 from __future__ import annotations
 
 import pytest
-from .rule_helpers import of_rule, places
 
 from linter.config import Config, TableSettings
 from linter.engine import run
+
+from .rule_helpers import of_rule, places
 
 NF_RULES = ("partial-dependency", "transitive-dependency", "bcnf-violation")
 

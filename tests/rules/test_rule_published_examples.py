@@ -13,10 +13,10 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from .rule_helpers import of_rule
-
 from linter.config import Config, load_config
 from linter.engine import run
+
+from .rule_helpers import of_rule
 
 
 def test_suppliers_shape_first_is_1nf_with_a_partial_and_a_transitive_dependency(check) -> None:

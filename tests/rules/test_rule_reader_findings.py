@@ -3,11 +3,11 @@ from __future__ import annotations
 
 from pathlib import Path
 
-from .rule_helpers import places
-
 from linter.config import Config
 from linter.engine import run
 from rules import get_rule
+
+from .rule_helpers import places
 
 READER_RULES = ("annotation-error", "file-error", "schema-conflict", "syntax-error", "unsupported-statement")
 

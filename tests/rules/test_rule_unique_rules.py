@@ -4,10 +4,11 @@ from __future__ import annotations
 from pathlib import Path
 
 import pytest
-from .rule_helpers import of_rule, places
 
 from linter.config import Config
 from linter.engine import run
+
+from .rule_helpers import of_rule, places
 
 
 def test_nullable_unique_fires_on_column_constraint_and_index(check) -> None:

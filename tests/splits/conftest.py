@@ -4,10 +4,12 @@ from __future__ import annotations
 from collections.abc import Callable
 
 import pytest
-from .split_support import FIXTURES, ROOT, dialect_of
 
 from linter.config import Config
 from linter.engine import Result, run
+
+from ..locations import ROOT
+from .split_support import FIXTURES, dialect_of
 
 Check = Callable[..., Result]
 

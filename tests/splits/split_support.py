@@ -1,12 +1,9 @@
 """Shared by the split tests: where the fixtures are, their dialects, and the findings of the split rules."""
 from __future__ import annotations
 
-from pathlib import Path
-
 from linter.engine import Result
 from linter.model import Finding
 
-ROOT = Path(__file__).resolve().parents[2]
 FIXTURES = "fixtures/splits"
 SPLIT_RULES = ("lossy-split", "unenforceable-dependency")
 

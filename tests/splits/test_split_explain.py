@@ -3,9 +3,11 @@ from __future__ import annotations
 
 import pytest
 from click.testing import CliRunner
-from .split_support import FIXTURES, ROOT, dialect_of
 
 from linter.cli.main import main
+
+from ..locations import ROOT
+from .split_support import FIXTURES, dialect_of
 
 
 def _explain(case: str, table: str, monkeypatch: pytest.MonkeyPatch) -> list[str]:

@@ -4,10 +4,12 @@ from __future__ import annotations
 from pathlib import Path
 
 import pytest
-from .split_support import FIXTURES, ROOT, split_findings
 
 from linter.config import Config
 from linter.engine import run
+
+from ..locations import ROOT
+from .split_support import FIXTURES, split_findings
 
 CASES = sorted(p.name for p in (ROOT / FIXTURES).iterdir() if p.is_dir())
 

@@ -3,10 +3,16 @@ from __future__ import annotations
 
 from hypothesis import given, settings
 from hypothesis import strategies as st
-from .split_oracle import join_of_projections, lossy_counterexample, satisfies, unpreserved
 
 from linter.model import Dependency, Span, Split, SplitPiece
 from linter.split_analysis import split_analysis
+
+from .split_oracle import (
+    join_of_projections,
+    lossy_counterexample,
+    satisfies,
+    unpreserved,
+)
 
 COLUMNS = ("hub", "van", "route", "driver")
 AT = Span("db/007_vans.sql", 3, 1, 3, 18)

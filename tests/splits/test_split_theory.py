@@ -28,13 +28,21 @@ from dataclasses import dataclass
 from itertools import combinations
 
 import pytest
-from .split_oracle import closure, join_of_projections, lossy_counterexample, satisfies, unpreserved
-from .split_support import FIXTURES, ROOT, dialect_of
 
 from linter.dependencies import normal_form
 from linter.model import Dependency, Span, Split, SplitPiece
 from linter.reader import read_catalog
 from linter.split_analysis import SplitAnalysis, split_analysis
+
+from ..locations import ROOT
+from .split_oracle import (
+    closure,
+    join_of_projections,
+    lossy_counterexample,
+    satisfies,
+    unpreserved,
+)
+from .split_support import FIXTURES, dialect_of
 
 
 @dataclass(frozen=True)

@@ -2,7 +2,6 @@
 from __future__ import annotations
 
 import pytest
-from .split_oracle import lossy_counterexample
 
 from linter.dependencies import Projection
 from linter.explain_split import split_lines
@@ -10,6 +9,8 @@ from linter.model import Catalog, Dependency, Span, Split, SplitPiece
 from linter.rule import Context
 from linter.split_analysis import split_analysis
 from rules import get_rule
+
+from .split_oracle import lossy_counterexample
 
 AT = Span("db/005_split.sql", 7, 1, 7, 20)
 

@@ -6,6 +6,7 @@ run sees the same ones; NORMGUARD_THEORY_PROFILE=theory-quick runs 100 while wor
 from __future__ import annotations
 
 import os
+
 from hypothesis import HealthCheck, settings
 from hypothesis import strategies as st
 

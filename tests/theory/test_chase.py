@@ -7,7 +7,13 @@ from hypothesis import strategies as st
 
 from linter.dependencies import FD, chase_is_lossless
 
-from .oracle import bits_of, chase_lossless, join_of_projections, naive_closure, satisfies
+from .oracle import (
+    bits_of,
+    chase_lossless,
+    join_of_projections,
+    naive_closure,
+    satisfies,
+)
 from .strategies import THEORY, decompositions
 
 

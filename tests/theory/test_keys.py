@@ -5,7 +5,13 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
-from linter.dependencies import FD, candidate_keys, is_superkey, prime_attributes, set_order
+from linter.dependencies import (
+    FD,
+    candidate_keys,
+    is_superkey,
+    prime_attributes,
+    set_order,
+)
 
 from .oracle import naive_closure, oracle_keys
 from .strategies import THEORY, relations
