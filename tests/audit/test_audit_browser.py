@@ -19,6 +19,7 @@ from click.testing import CliRunner
 
 from linter.cli.main import main
 
+from ..locations import SHARED
 from .browser import console_messages, load, png_size
 
 _MEASURE = """<script>
@@ -48,7 +49,7 @@ _MEASURE = """<script>
 @pytest.fixture(scope="module")
 def lemmy_audit(tmp_path_factory: pytest.TempPathFactory) -> tuple[Path, dict]:
     """The audit of ../shared/corpus/lemmy/migrations: the HTML page and the JSON data."""
-    folder = Path(__file__).resolve().parents[2].parent / "shared" / "corpus" / "lemmy" / "migrations"
+    folder = SHARED / "corpus" / "lemmy" / "migrations"
     if not folder.is_dir():
         pytest.skip("../shared/corpus/lemmy/migrations is not there: the corpus audit needs it")
     out = tmp_path_factory.mktemp("lemmy")

@@ -31,7 +31,9 @@ from sqlglot.tokens import TokenType
 from linter.reader.sources import read_source
 from linter.reader.statements import Statement, split_file
 
-CORPUS = Path(__file__).resolve().parents[3] / "shared" / "corpus"
+from ..locations import SHARED
+
+CORPUS = SHARED / "corpus"
 REPORT = CORPUS / "PARSE_REPORT.md"
 ROUTINE_HEAD = re.compile(
     r"^(CREATE\s+(OR\s+REPLACE\s+)?(DEFINER\s*=\s*\S+\s+)?"

@@ -7,7 +7,6 @@ source).
 from __future__ import annotations
 
 import re
-from pathlib import Path
 
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
@@ -17,7 +16,9 @@ from linter.reader.annotations import parse_annotations
 from linter.reader.sources import Source, read_source
 from linter.reader.statements import split_file
 
-FIXTURES = Path(__file__).resolve().parents[2] / "fixtures" / "reader"
+from ..locations import ROOT
+
+FIXTURES = ROOT / "fixtures" / "reader"
 SEEDS = [
     (dialect, path.read_text(encoding="utf-8"))
     for dialect in ("postgres", "mysql", "sqlite", "tsql")

@@ -8,7 +8,6 @@ to the end of their line.
 from __future__ import annotations
 
 import logging
-from pathlib import Path
 
 import pytest
 from sqlglot import exp
@@ -16,7 +15,9 @@ from sqlglot import exp
 from linter.reader.sources import Source, read_source
 from linter.reader.statements import Script, UnknownDialectError, split_file
 
-FIXTURES = Path(__file__).resolve().parents[2] / "fixtures" / "reader"
+from ..locations import ROOT, SHARED
+
+FIXTURES = ROOT / "fixtures" / "reader"
 
 
 def _split(text: str, dialect: str, path: str = "db/001.sql") -> Script:
@@ -201,7 +202,7 @@ def test_missing_semicolon_between_ddl_statements_is_reported_and_recovered() ->
 
 
 def test_the_synapse_file_with_a_missing_semicolon() -> None:
-    corpus = Path(__file__).resolve().parents[3] / "shared" / "corpus" / "synapse"
+    corpus = SHARED / "corpus" / "synapse"
     path = corpus / "synapse/storage/schema/main/delta/54/account_validity_with_renewal.sql"
     if not path.is_file():
         pytest.skip(f"{path} is missing: this check reads the shared corpus")

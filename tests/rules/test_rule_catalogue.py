@@ -2,14 +2,15 @@
 from __future__ import annotations
 
 import re
-from pathlib import Path
 
 import pytest
 
 from linter.model import SEVERITIES
 from rules import all_rules, get_rule
 
-RULES_DIR = Path(__file__).resolve().parents[2] / "rules"
+from ..locations import ROOT
+
+RULES_DIR = ROOT / "rules"
 MINE = {
     "missing-key": "warning", "partial-dependency": "warning", "transitive-dependency": "warning",
     "bcnf-violation": "warning", "nullable-unique": "warning", "redundant-unique": "note",
