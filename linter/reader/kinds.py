@@ -105,15 +105,16 @@ def opaque_ddl(tokens: Sequence[Token]) -> bool:
         levels, _ = nesting(tokens)
         for i in range(2, len(tokens)):
             action = word(tokens[i]) in ("ADD", "DROP", "RENAME")
-            if action and levels[i][0] == 0 and not _adds_default(tokens, i):
+            if action and levels[i][0] == 0 and not _adds_check_or_default(tokens, i):
                 return True
     return False
 
 
-def _adds_default(tokens: Sequence[Token], i: int) -> bool:
-    """True at ``ADD [CONSTRAINT name] DEFAULT``: a T-SQL default, which no key depends on."""
+def _adds_check_or_default(tokens: Sequence[Token], i: int) -> bool:
+    """True at ``ADD [CONSTRAINT name] CHECK|DEFAULT``: a rule or a T-SQL default, no key depends on it."""
     words = [word(t) for t in tokens[i : i + 4]]
-    return words[1:2] == ["DEFAULT"] or (words[1:2] == ["CONSTRAINT"] and words[3:4] == ["DEFAULT"])
+    kinds = (["CHECK"], ["DEFAULT"])
+    return words[0] == "ADD" and (words[1:2] in kinds or (words[1:2] == ["CONSTRAINT"] and words[3:4] in kinds))
 
 
 def is_fragment(expression: exp.Expression) -> bool:

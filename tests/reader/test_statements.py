@@ -225,6 +225,15 @@ def test_opaque_ddl_is_replayed_other_commands_and_fragments_are_skipped() -> No
     assert replayed == [("opaque", True, 2), ("opaque", True, 3)]
     assert [(s.kind, s.span.line) for s in script.skipped] == [("command", 1), ("command", 4)]
     assert script.count("opaque") == 2 and script.count("command") == 2
+    # CHECK rules added in a form the parser keeps as text change no key (lemmy's modlog migrations)
+    checks = _split(
+        "ALTER TABLE riders ADD CHECK ((kind = 'a' AND num_nonnulls (x, y) = 2) OR kind = 'b');\n"
+        "ALTER TABLE riders ADD CONSTRAINT c CHECK (num_nonnulls (x, y) = 1), ALTER CONSTRAINT f NOT DEFERRABLE;\n"
+        "ALTER TABLE riders DROP CONSTRAINT k, ALTER CONSTRAINT f NOT DEFERRABLE;\n",
+        "postgres",
+    )
+    assert [(s.kind, s.span.line) for s in checks.statements] == [("opaque", 3)]
+    assert [(s.kind, s.span.line) for s in checks.skipped] == [("command", 1), ("command", 2)]
     fragment = _split("CREATE TABLE t (id int);\nleftover;\n", "postgres")
     assert [s.kind for s in fragment.skipped] == ["fragment"] and fragment.count("ast") == 1
 
