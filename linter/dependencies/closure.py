@@ -17,7 +17,6 @@ Every left-side attribute is counted down at most once, so a query costs O(|X| +
 """
 from __future__ import annotations
 
-from collections import defaultdict
 from collections.abc import Iterable, Sequence
 
 
@@ -26,22 +25,30 @@ class ClosureIndex:
 
     def __init__(self, fds: Iterable[tuple[int, int]]) -> None:
         self.fds: list[tuple[int, int]] = list(fds)
-        self._unmet: list[int] = []
-        self._rhs: list[int] = []
-        self._users: defaultdict[int, list[int]] = defaultdict(list)
-        self._all_rhs = 0
+        unmet: list[int] = []
+        rhs_of: list[int] = []
+        users: dict[int, list[int]] = {0: []}
+        all_rhs = 0
         for i, (lhs, rhs) in enumerate(self.fds):
-            self._rhs.append(rhs)
-            self._all_rhs |= rhs
+            rhs_of.append(rhs)
+            all_rhs |= rhs
             if not lhs:  # waits on the virtual attribute 0, known from the start
-                self._unmet.append(1)
-                self._users[0].append(i)
+                unmet.append(1)
+                users[0].append(i)
                 continue
-            self._unmet.append(lhs.bit_count())
+            unmet.append(lhs.bit_count())
             while lhs:
                 a = lhs & -lhs
                 lhs ^= a
-                self._users[a].append(i)
+                waiting = users.get(a)
+                if waiting is None:
+                    users[a] = [i]
+                else:
+                    waiting.append(i)
+        self._unmet = unmet
+        self._rhs = rhs_of
+        self._users = users
+        self._all_rhs = all_rhs
 
     def closure(self, x: int, skip: Iterable[int] = ()) -> int:
         """X+ under the dependencies, leaving out those at the positions in ``skip``."""
