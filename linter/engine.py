@@ -79,8 +79,8 @@ def run(
     kept, suppressed = _suppress(found, catalog)
     if report_paths is not None:
         wanted = [display_path(path) for path in report_paths]
-        kept = [f for f in kept if _located_in(f.span.path, wanted)]
-        suppressed = [f for f in suppressed if _located_in(f.span.path, wanted)]
+        kept = [f for f in kept if located_in(f.span.path, wanted)]
+        suppressed = [f for f in suppressed if located_in(f.span.path, wanted)]
     return Result(catalog, _finished(kept), _finished(suppressed), analyses, rules)
 
 
@@ -148,7 +148,7 @@ def _suppress(findings: list[Finding], catalog: Catalog) -> tuple[list[Finding],
     return kept, suppressed
 
 
-def _located_in(path: str, wanted: list[str]) -> bool:
+def located_in(path: str, wanted: Sequence[str]) -> bool:
     """True when ``path`` is one of ``wanted`` or lies in one of them as a folder."""
     return any(path == w or w == "." or path.startswith(w.rstrip("/") + "/") for w in wanted)
 

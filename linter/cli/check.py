@@ -14,7 +14,7 @@ from linter.cli.options import checked_dialect, exit_status, split_ids, use_colo
 from linter.cli.show_rules import unknown_rule
 from linter.config import Config, load_config
 from linter.config_check import FAIL_LEVELS, TARGETS
-from linter.engine import run
+from linter.engine import located_in, run
 from linter.reader.sources import display_path
 from linter.reporters import FORMATS, render
 from rules import all_rules
@@ -28,11 +28,6 @@ def existing(paths: tuple[str, ...] | list[str], what: str) -> list[str]:
     return [display_path(path) for path in paths]
 
 
-def _inside(path: str, folder: str) -> bool:
-    """True when ``path`` is ``folder`` or below it (both relative to the working directory)."""
-    return path == folder or folder == "." or path.startswith(folder.rstrip("/") + "/")
-
-
 def plan(paths: tuple[str, ...], context: str | None, config: Config) -> tuple[list[str], list[str] | None]:
     """What to read and what to report on: with a context folder and files, read all, report the files."""
     if not paths:
@@ -43,9 +38,9 @@ def plan(paths: tuple[str, ...], context: str | None, config: Config) -> tuple[l
         return given, None
     where = "--context" if context is not None else f"'migrations' in {config.source}"
     (folder,) = existing([folder], f"from {where}")
-    if any(_inside(folder, path) for path in given):
+    if any(located_in(folder, [path]) for path in given):
         return given, None  # the whole folder was asked for: nothing to add, nothing to leave out
-    return [folder, *(path for path in given if not _inside(path, folder))], given
+    return [folder, *(path for path in given if not located_in(path, [folder]))], given
 
 
 def _rule_ids(values: tuple[str, ...]) -> tuple[str, ...]:
@@ -114,6 +109,10 @@ def check(
         read, report = plan(paths, context, config)
         recorded = read_baseline(baseline_path) if baseline_path is not None else None
         result = run(config, read, report_paths=report)
+        wanted = report or read
+        if not any(located_in(path, wanted) for path in result.catalog.files):
+            click.echo(f"normguard: no SQL file found under {', '.join(wanted)} (include: "
+                       f"{', '.join(config.include)}); nothing was checked", err=True)
         if recorded is not None:
             result, comparison = apply_baseline(result, recorded, report or read)
         code = exit_status(result.findings, config.fail_on)

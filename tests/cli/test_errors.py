@@ -41,6 +41,14 @@ def test_unknown_dialect_suggests(example, runner):
     assert "unknown dialect 'postgresql'; did you mean postgres" in line
 
 
+def test_a_folder_without_sql_says_nothing_was_checked(example, runner):
+    (example / "notes").mkdir()
+    (example / "notes" / "README.txt").write_text("no SQL here\n", encoding="utf-8")
+    outcome = runner.invoke(main, ["check", "notes"])
+    assert outcome.exit_code == 0
+    assert outcome.stderr == "normguard: no SQL file found under notes (include: **/*.sql); nothing was checked\n"
+
+
 def test_missing_path(example, runner):
     line = _one_line_error(runner.invoke(main, ["check", "migrations/0099_missing.sql"]))
     assert line == "normguard: migrations/0099_missing.sql: no such file or directory (given on the command line)"
