@@ -52,6 +52,7 @@ class Unique:
     name: str | None = None
     partial: bool = False
     expression: bool = False
+    inherited_from: str | None = None  # the partitioned table this partition's copy of the rule comes from
 
     @property
     def is_primary(self) -> bool:
@@ -112,6 +113,7 @@ class Table:
     allows: list[Allow] = field(default_factory=list)
     history: list[Event] = field(default_factory=list)
     split_from: str | None = None
+    partition_of: str | None = None  # the partitioned table it is attached to (PostgreSQL)
 
     def column(self, name: str) -> Column | None:
         """The column called ``name``, or None."""

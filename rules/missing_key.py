@@ -18,9 +18,11 @@ ID = "missing-key"
 
 
 def check(context: Context) -> Iterator[Finding]:
-    """One finding per table without a key, at its CREATE TABLE."""
-    for table in context.catalog.tables.values():
-        if not table.keys:
+    """One finding per table without a key, at its CREATE TABLE; a keyless parent speaks for its partitions."""
+    tables = context.catalog.tables
+    for table in tables.values():
+        parent = tables.get(table.partition_of) if table.partition_of else None
+        if not table.keys and (parent is None or parent.keys):
             yield Finding(
                 ID,
                 RULE.severity,
@@ -28,13 +30,25 @@ def check(context: Context) -> Iterator[Finding]:
                 f"{table.name} has no primary key and no unique key over NOT NULL columns,"
                 " so it can hold duplicate rows",
                 table.name,
-                explanation=_explanation(table),
+                explanation=_explanation(table, _partitions(tables, table)),
             )
 
 
-def _explanation(table: Table) -> list[str]:
+def _partitions(tables: dict[str, Table], parent: Table) -> list[str]:
+    """The keyless tables attached to ``parent`` as partitions, which share its finding."""
+    return [t.name for t in tables.values() if t.partition_of == parent.name and t is not parent and not t.keys]
+
+
+def _explanation(table: Table, partitions: list[str]) -> list[str]:
     """Why the uniques it has do not count, and what to declare instead."""
     lines = []
+    if partitions:
+        shown = ", ".join(partitions[:3]) + (f" and {len(partitions) - 3} more" if len(partitions) > 3 else "")
+        lines.append(f"its partitions ({shown}) have no key either and are not reported one by one:"
+                     " a key declared here reaches each of them")
+    if table.partition_of:
+        lines.append(f"it is a partition of {table.partition_of} but carries none of its keys:"
+                     " a partition lacking a key column cannot take the key")
     for unique in table.uniques:
         columns = ", ".join(unique.columns)
         if unique.partial:

@@ -28,6 +28,7 @@ from linter.model import Table
 from linter.reader.constraints import column_spec, table_constraints
 from linter.reader.ddl import remove_unique
 from linter.reader.names import fold_column, schema_of, table_name
+from linter.reader.partitions import share_keys
 from linter.reader.state import ReplayState
 from linter.reader.tables import (
     add_column,
@@ -53,8 +54,11 @@ def alter_table(state: ReplayState, alter: exp.Alter) -> bool:
     if renamed is not None:
         _rename_column(state, table, *renamed)
         return True
+    before = list(table.uniques)
     for action in alter.args.get("actions") or []:
         _action(state, table, action)
+    if table.uniques != before:
+        share_keys(state, table)  # a partitioned table's keys reach its partitions, even with ONLY
     return True
 
 

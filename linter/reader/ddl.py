@@ -23,12 +23,17 @@ from sqlglot import exp
 from linter.model import Table, Unique
 from linter.reader.constraints import column_spec, table_constraints
 from linter.reader.names import column_name, fold_column, schema_of, table_name
+from linter.reader.partitions import create_partition, inherit_columns, share_keys
 from linter.reader.state import ReplayState
 from linter.reader.tables import add_column, add_constraints
 
 
 def create_table(state: ReplayState, create: exp.Create) -> bool:
-    """Add the table a CREATE TABLE with a column list declares."""
+    """Add the table a CREATE TABLE with a column list (or PostgreSQL's PARTITION OF) declares."""
+    properties = create.args.get("properties")
+    partition_of = properties.find(exp.PartitionedOfProperty) if properties is not None else None
+    if partition_of is not None:
+        return create_partition(state, create, partition_of)
     schema = create.this
     if not isinstance(schema, exp.Schema) or not isinstance(schema.this, exp.Table):
         return False
@@ -43,6 +48,7 @@ def create_table(state: ReplayState, create: exp.Create) -> bool:
     for item in items:
         if isinstance(item, exp.ColumnDef):
             add_column(state, table, column_spec(item, state.dialect))
+    inherit_columns(state, table, create)
     for item in items:
         if not isinstance(item, exp.ColumnDef):
             add_constraints(state, table, table_constraints(item, state.dialect))
@@ -82,6 +88,7 @@ def create_index(state: ReplayState, create: exp.Create) -> bool:
     table.uniques.append(unique)
     flags = " (partial)" * unique.partial + " (expression)" * unique.expression
     state.event(table, "altered", f"added unique index {index_name or ''} ({', '.join(plain)}){flags}")
+    share_keys(state, table)
     return True
 
 
@@ -153,4 +160,5 @@ def remove_unique(state: ReplayState, table: Table, name: str) -> bool:
         return False
     table.uniques.remove(found)
     state.event(table, "altered", f"dropped {found.source} {name} ({', '.join(found.columns)})")
+    share_keys(state, table)
     return True

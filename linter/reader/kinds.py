@@ -88,7 +88,7 @@ def cannot_change_tables(tokens: Sequence[Token]) -> bool:
 
 
 def opaque_ddl(tokens: Sequence[Token]) -> bool:
-    """True for CREATE TABLE, CREATE UNIQUE INDEX, ALTER TABLE ... ADD/DROP/RENAME, RENAME TABLE."""
+    """True for CREATE TABLE, CREATE UNIQUE INDEX, ALTER TABLE ... ADD/DROP/RENAME/ATTACH/DETACH, RENAME TABLE."""
     words = [word(t) for t in tokens[:8]]
     if not words:
         return False
@@ -104,7 +104,7 @@ def opaque_ddl(tokens: Sequence[Token]) -> bool:
     if words[:2] == ["ALTER", "TABLE"]:
         levels, _ = nesting(tokens)
         for i in range(2, len(tokens)):
-            action = word(tokens[i]) in ("ADD", "DROP", "RENAME")
+            action = word(tokens[i]) in ("ADD", "DROP", "RENAME", "ATTACH", "DETACH")
             if action and levels[i][0] == 0 and not _adds_check_or_default(tokens, i):
                 return True
     return False

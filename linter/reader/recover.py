@@ -1,7 +1,9 @@
-"""A statement sqlglot keeps as opaque text, read from its tokens: ALTER TABLE ... RENAME CONSTRAINT.
+"""Statements sqlglot keeps as opaque text, read from their tokens: RENAME CONSTRAINT, ATTACH PARTITION.
 
-The catalog needs it (a later DROP CONSTRAINT looks for the new name) and its grammar is small
-enough to follow token by token: ``ALTER TABLE [IF EXISTS] [ONLY] t RENAME CONSTRAINT a TO b``.
+The catalog needs them (a later DROP CONSTRAINT looks for the new name; a partition carries its
+parent's keys) and their grammar is small enough to follow token by token:
+``ALTER TABLE [IF EXISTS] [ONLY] t RENAME CONSTRAINT a TO b`` and
+``ALTER TABLE [IF EXISTS] [ONLY] t ATTACH | DETACH PARTITION c ...``.
 
 >>> from linter.reader.dialects import get_dialect
 >>> tokens = get_dialect("postgres").tokenize('"Billing".invoices RENAME')
@@ -19,19 +21,28 @@ from sqlglot.tokens import Token, TokenType
 
 from linter.reader.dialects import get_dialect
 from linter.reader.names import fold_column, table_name
+from linter.reader.partitions import attach, detach
 from linter.reader.state import ReplayState
 
 _NAME_TYPES = frozenset({TokenType.VAR, TokenType.IDENTIFIER})
 
 
 def recover(state: ReplayState, text: str) -> bool:
-    """Replay an ALTER TABLE ... RENAME CONSTRAINT from its tokens; False for any other statement."""
+    """Replay an ALTER TABLE ... RENAME CONSTRAINT / ATTACH / DETACH PARTITION; False for others."""
     try:
         tokens = get_dialect(state.dialect).tokenize(text)
     except TokenError:
         return False
-    words = [token.text.upper() for token in tokens[:2]]
-    return words == ["ALTER", "TABLE"] and _rename_constraint(state, tokens)
+    if [token.text.upper() for token in tokens[:2]] != ["ALTER", "TABLE"]:
+        return False
+    i = 2
+    while i < len(tokens) and tokens[i].text.upper() in ("IF", "EXISTS", "ONLY"):
+        i += 1
+    if_exists = any(token.text.upper() == "EXISTS" for token in tokens[2:i])
+    target, i = _name(tokens, i)
+    if target is None:
+        return False
+    return _rename_constraint(state, tokens, i, target, if_exists) or _partition(state, tokens, i, target, if_exists)
 
 
 def _identifier(token: Token) -> exp.Identifier:
@@ -56,15 +67,27 @@ def _name(tokens: list[Token], start: int) -> tuple[exp.Table | None, int]:
     return (exp.Table(**dict(zip(names, parts))) if names else None), i
 
 
-def _rename_constraint(state: ReplayState, tokens: list[Token]) -> bool:
+def _partition(state: ReplayState, tokens: list[Token], i: int, parent: exp.Table, if_exists: bool) -> bool:
+    """``... t ATTACH | DETACH PARTITION c [FOR VALUES ... | DEFAULT | CONCURRENTLY | FINALIZE]``."""
+    verb = [token.text.upper() for token in tokens[i : i + 2]]
+    if verb not in (["ATTACH", "PARTITION"], ["DETACH", "PARTITION"]):
+        return False
+    child, after = _name(tokens, i + 2)
+    if child is None:
+        return False
+    parent_name, name = table_name(parent, state.dialect), table_name(child, state.dialect)
+    if verb[0] == "ATTACH":
+        attach(state, parent_name, name, state.text_span(tokens[i + 2].start, tokens[after - 1].end + 1), if_exists)
+    else:
+        finalize = any(token.text.upper() == "FINALIZE" for token in tokens[after:])
+        detach(state, parent_name, name, if_exists, finalize)
+    return True
+
+
+def _rename_constraint(state: ReplayState, tokens: list[Token], i: int, target: exp.Table, if_exists: bool) -> bool:
     """``ALTER TABLE [IF EXISTS] [ONLY] t RENAME CONSTRAINT a TO b``: the rule keeps its columns."""
-    i = 2
-    while i < len(tokens) and tokens[i].text.upper() in ("IF", "EXISTS", "ONLY"):
-        i += 1
-    if_exists = any(token.text.upper() == "EXISTS" for token in tokens[2:i])
-    target, i = _name(tokens, i)
     words = [token.text.upper() for token in tokens[i:]]
-    if target is None or len(words) != 5 or words[:2] != ["RENAME", "CONSTRAINT"] or words[3] != "TO":
+    if len(words) != 5 or words[:2] != ["RENAME", "CONSTRAINT"] or words[3] != "TO":
         return False
     old_token, new_token = tokens[i + 2], tokens[i + 4]
     if old_token.token_type not in _NAME_TYPES or new_token.token_type not in _NAME_TYPES:

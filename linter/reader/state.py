@@ -86,6 +86,13 @@ class ReplayState:
         found = self.statement.span_of(node)
         return found if found is not None else self.span
 
+    def text_span(self, start: int, end: int) -> Span:
+        """The file span of ``text[start:end]`` of the current statement (its tokens read again)."""
+        statement = self.statement
+        if statement is None or statement.lines is None:
+            return self.span
+        return statement.lines.span(statement.offset + start, statement.offset + end)
+
     def report(self, rule: str, severity: str, message: str, span: Span | None = None,
                table: str | None = None) -> None:
         """Add a reader finding (at the current statement unless a span is given)."""

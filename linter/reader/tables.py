@@ -134,4 +134,6 @@ def rename_table(state: ReplayState, table: Table, new: str) -> None:
     state.catalog.tables[new] = table
     for other in state.catalog.tables.values():
         other.foreign_keys = [replace(f, ref_table=new) if f.ref_table == old else f for f in other.foreign_keys]
+        other.uniques = [replace(u, inherited_from=new) if u.inherited_from == old else u for u in other.uniques]
+        other.partition_of = new if other.partition_of == old else other.partition_of
     state.event(table, "renamed", f"renamed from {old} to {new}")
