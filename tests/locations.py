@@ -1,4 +1,4 @@
-"""Where the tests find the checkout and the read-only ``../shared`` folder beside it."""
+"""Where the tests find the checkout and ``../shared``, and how they read a failed run."""
 from __future__ import annotations
 
 from pathlib import Path
@@ -15,3 +15,11 @@ def shared_path(*parts: str) -> Path:
     if not path.exists():
         pytest.skip(f"../shared/{'/'.join(parts)} is not there beside the checkout: this test reads it")
     return path
+
+
+def one_line_error(outcome) -> str:
+    """The single ``normguard: ...`` stderr line of a run that failed with status 2 (no traceback)."""
+    assert outcome.exit_code == 2, outcome.output
+    lines = outcome.stderr.splitlines()
+    assert len(lines) == 1 and lines[0].startswith("normguard: "), outcome.stderr
+    return lines[0]

@@ -14,6 +14,8 @@ from linter.baseline import Baseline, Entry, compare, dump_baseline, parse_basel
 from linter.cli.main import main
 from linter.model import Finding, Span
 
+from ..locations import one_line_error
+
 FOREIGN = {
     "pre-commit settings": ("repos:\n  - repo: local\n    hooks: []\n", "not a normguard baseline"),
     "empty file": ("", "the baseline file is empty"),
@@ -29,16 +31,9 @@ FOREIGN = {
 }
 
 
-def _failure(outcome) -> str:
-    """The one stderr line of a run that failed with status 2."""
-    assert outcome.exit_code == 2, outcome.output
-    lines = outcome.stderr.splitlines()
-    assert len(lines) == 1 and lines[0].startswith("normguard: "), outcome.stderr
-    return lines[0]
-
 
 def test_missing_baseline(library, runner):
-    line = _failure(runner.invoke(main, ["check", "--baseline", "absent.yaml", "migrations"]))
+    line = one_line_error(runner.invoke(main, ["check", "--baseline", "absent.yaml", "migrations"]))
     assert line == "normguard: absent.yaml: no such baseline file (create it with `normguard baseline`)"
 
 
@@ -46,26 +41,26 @@ def test_missing_baseline(library, runner):
 def test_bad_baseline_names_file_and_problem(library, runner, case):
     text, problem = FOREIGN[case]
     Path("accepted.yaml").write_text(text, encoding="utf-8")
-    line = _failure(runner.invoke(main, ["check", "--baseline", "accepted.yaml", "migrations"]))
+    line = one_line_error(runner.invoke(main, ["check", "--baseline", "accepted.yaml", "migrations"]))
     assert line.startswith("normguard: accepted.yaml") and problem in line
 
 
 def test_yaml_error_gives_the_line(library, runner):
     Path("accepted.yaml").write_text("normguard-baseline: 1\nfindings:\n  - {rule: x\n", encoding="utf-8")
-    line = _failure(runner.invoke(main, ["check", "--baseline", "accepted.yaml", "migrations"]))
+    line = one_line_error(runner.invoke(main, ["check", "--baseline", "accepted.yaml", "migrations"]))
     assert line.startswith("normguard: accepted.yaml:4: not valid YAML")
 
 
 def test_baseline_never_overwrites_a_file_that_is_not_one(library, runner):
     settings = Path(".pre-commit-config.yaml")
     settings.write_text("repos: []\n", encoding="utf-8")
-    line = _failure(runner.invoke(main, ["baseline", "migrations", "--output", str(settings)]))
+    line = one_line_error(runner.invoke(main, ["baseline", "migrations", "--output", str(settings)]))
     assert "not a normguard baseline" in line and "not overwriting it" in line
     assert settings.read_text(encoding="utf-8") == "repos: []\n"
 
 
 def test_prune_needs_an_existing_baseline(library, runner):
-    line = _failure(runner.invoke(main, ["baseline", "--prune", "migrations"]))
+    line = one_line_error(runner.invoke(main, ["baseline", "--prune", "migrations"]))
     assert "no such baseline file to prune" in line
     assert not Path(".normguard-baseline.yaml").exists()
 

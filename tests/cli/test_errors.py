@@ -10,34 +10,28 @@ import pytest
 import linter.cli.check
 from linter.cli.main import main
 
-
-def _one_line_error(outcome) -> str:
-    """The single stderr line of a failed run (exit 2), checked to carry no traceback."""
-    assert outcome.exit_code == 2, outcome.output
-    lines = outcome.stderr.splitlines()
-    assert len(lines) == 1 and lines[0].startswith("normguard: "), outcome.stderr
-    return lines[0]
+from ..locations import one_line_error
 
 
 def test_bad_settings_name_the_file_key_and_line(example, runner):
     (example / ".normguard.yaml").write_text("paths: [migrations]\ntargets: 3nf\n", encoding="utf-8")
-    line = _one_line_error(runner.invoke(main, ["check"]))
+    line = one_line_error(runner.invoke(main, ["check"]))
     assert line == "normguard: .normguard.yaml:2: targets: unknown key (did you mean 'target'?)"
 
 
 def test_bad_value_in_settings(example, runner):
     (example / "strict.yaml").write_text("fail-on: sometimes\n", encoding="utf-8")
-    line = _one_line_error(runner.invoke(main, ["check", "--config", "strict.yaml"]))
+    line = one_line_error(runner.invoke(main, ["check", "--config", "strict.yaml"]))
     assert "strict.yaml:1" in line and "fail-on" in line
 
 
 def test_missing_settings_file(example, runner):
-    line = _one_line_error(runner.invoke(main, ["check", "--config", "absent.yaml"]))
+    line = one_line_error(runner.invoke(main, ["check", "--config", "absent.yaml"]))
     assert "absent.yaml" in line
 
 
 def test_unknown_dialect_suggests(example, runner):
-    line = _one_line_error(runner.invoke(main, ["check", "--dialect", "postgresql"]))
+    line = one_line_error(runner.invoke(main, ["check", "--dialect", "postgresql"]))
     assert "unknown dialect 'postgresql'; did you mean postgres" in line
 
 
@@ -50,13 +44,13 @@ def test_a_folder_without_sql_says_nothing_was_checked(example, runner):
 
 
 def test_missing_path(example, runner):
-    line = _one_line_error(runner.invoke(main, ["check", "migrations/0099_missing.sql"]))
+    line = one_line_error(runner.invoke(main, ["check", "migrations/0099_missing.sql"]))
     assert line == "normguard: migrations/0099_missing.sql: no such file or directory (given on the command line)"
 
 
 def test_unknown_option_and_format(example, runner):
-    assert "--bogus" in _one_line_error(runner.invoke(main, ["check", "--bogus"]))
-    assert "--format" in _one_line_error(runner.invoke(main, ["check", "--format", "xml"]))
+    assert "--bogus" in one_line_error(runner.invoke(main, ["check", "--bogus"]))
+    assert "--format" in one_line_error(runner.invoke(main, ["check", "--format", "xml"]))
 
 
 def test_internal_error_has_a_traceback_only_with_debug(example, runner, monkeypatch):
@@ -64,7 +58,7 @@ def test_internal_error_has_a_traceback_only_with_debug(example, runner, monkeyp
         raise RuntimeError("replay exploded")
 
     monkeypatch.setattr(linter.cli.check, "run", broken)
-    line = _one_line_error(runner.invoke(main, ["check"]))
+    line = one_line_error(runner.invoke(main, ["check"]))
     assert line.startswith("normguard: internal error: RuntimeError: replay exploded")
     debug = runner.invoke(main, ["check", "--debug"])
     assert debug.exit_code == 2
@@ -98,13 +92,13 @@ def test_output_untouched_when_the_run_fails(example, runner, monkeypatch, args)
 def test_output_never_overwrites_an_input_file(example, runner):
     migration = example / "migrations" / "0002_routes.sql"
     before = migration.read_bytes()
-    line = _one_line_error(runner.invoke(main, ["check", "-o", "migrations/0002_routes.sql"]))
+    line = one_line_error(runner.invoke(main, ["check", "-o", "migrations/0002_routes.sql"]))
     assert line.endswith("refusing to write the report over a SQL file that was just read")
     assert migration.read_bytes() == before
 
 
 def test_output_into_a_missing_folder(example, runner):
-    line = _one_line_error(runner.invoke(main, ["check", "--output", "no/such/dir/report.txt"]))
+    line = one_line_error(runner.invoke(main, ["check", "--output", "no/such/dir/report.txt"]))
     assert "no/such/dir/report.txt" in line
 
 
