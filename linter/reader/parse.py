@@ -24,6 +24,7 @@ from sqlglot.errors import ParseError
 from sqlglot.tokens import Token, TokenType
 
 from linter.model import Finding
+from linter.reader.key_decorations import without_key_decorations
 from linter.reader.kinds import cannot_change_tables, describe, is_fragment, opaque_ddl
 from linter.reader.nesting import nesting
 from linter.reader.object_kinds import unknown_object_kind
@@ -35,8 +36,6 @@ from linter.reader.tokens import word
 __all__ = ["parse_statements"]
 
 _CLASS_NAME = re.compile(r"<class '(?:[\w.]*\.)?(\w+)'>")
-_INDEX_KINDS = ("CLUSTERED", "NONCLUSTERED")
-_KEY_WORDS = ("PRIMARY KEY", "KEY", "UNIQUE")
 
 
 def parse_statements(
@@ -128,7 +127,7 @@ def _parse(state: ReadState, tokens: list[Token], terminator: Token | None) -> S
             if e is not None and not isinstance(e, exp.Semicolon)
         ]
     except ParseError as error:
-        retry = _without_key_index_kind(tokens) if isinstance(state.dialect, TSQL) else None
+        retry = without_key_decorations(tokens)
         if retry is not None:
             recovered = _parse(state, retry, terminator)
             if recovered.kind != "error":
@@ -149,21 +148,6 @@ def _parse(state: ReadState, tokens: list[Token], terminator: Token | None) -> S
         return statement
     _classify(state, statement, parsed, tokens)
     return statement
-
-
-def _without_key_index_kind(tokens: Sequence[Token]) -> list[Token] | None:
-    """The tokens without T-SQL's ``[NON]CLUSTERED`` after ``PRIMARY KEY``/``UNIQUE``, or None.
-
-    sqlglot cannot read ``PRIMARY KEY NONCLUSTERED`` written on a column or unnamed in the column
-    list (../shared/corpus/PARSE_REPORT.md, point 4); how the index is stored changes no key, and
-    the other tokens keep their positions.
-    """
-    kept = [
-        token
-        for i, token in enumerate(tokens)
-        if not (word(token) in _INDEX_KINDS and i and word(tokens[i - 1]) in _KEY_WORDS)
-    ]
-    return kept if len(kept) < len(tokens) else None
 
 
 def _classify(

@@ -132,3 +132,16 @@ def test_sakila_sql_server_schema_keeps_every_table() -> None:
     assert len(catalog.tables) == 16
     assert all(keys(table) for table in catalog.tables.values())
     assert not [f for f in catalog.findings if f.rule == "syntax-error" and f.severity == "error"]
+
+
+def test_sqlite_conflict_clauses_and_ordered_key_columns() -> None:
+    # Both make sqlglot 30.30 fail on the whole table (../shared/corpus/PARSE_REPORT.md, point 4);
+    # neither changes a key (SQLite manual, "CREATE TABLE": conflict clause, indexed columns; from memory).
+    catalog = replay_sql(
+        "sqlite",
+        "CREATE TABLE seeds (id INTEGER PRIMARY KEY ON CONFLICT IGNORE, code TEXT NOT NULL UNIQUE ON CONFLICT REPLACE);\n"
+        "CREATE TABLE lots (seed_id INT NOT NULL, lot_no INT NOT NULL, PRIMARY KEY (seed_id DESC, lot_no ASC));\n",
+    )
+    assert not catalog.findings
+    assert keys(catalog.tables["seeds"]) == {("id",), ("code",)}
+    assert keys(catalog.tables["lots"]) == {("seed_id", "lot_no")}
