@@ -4,10 +4,11 @@
 
 Prints medians for generated relations of 16, 32, 64 and 128 attributes with twice as many
 dependencies: closure, minimal cover, candidate keys, normal form, 3NF synthesis and BCNF
-decomposition, each beside the brute-force version from ``bench/theory_oracle.py`` (fixpoint
-closure everywhere; subset enumeration for keys, normal forms and projections up to 16
-attributes) and their ratio. Then closure against the fixpoint on random sets and on a reversed
-chain of 128 links, and the full analysis of 64-attribute, 128-dependency relations.
+decomposition, each beside the brute-force version (the tests' oracle, ``tests/theory/oracle.py``,
+and ``bench/theory_oracle.py`` built on it: fixpoint closure everywhere; subset enumeration for
+keys, normal forms and projections up to 16 attributes) and their ratio. Then closure against
+the fixpoint on random sets and on a reversed chain of 128 links, and the full analysis of
+64-attribute, 128-dependency relations.
 Goals: closure no slower than the fixpoint on random sets, 20 times faster on the reversed chain;
 a 64-attribute relation analysed (keys, normal form, both decompositions) in under 50 ms.
 """
@@ -23,9 +24,9 @@ from pathlib import Path
 
 sys.path.insert(0, str(Path(__file__).resolve().parent.parent))
 
-import theory_oracle as brute  # noqa: E402  (the helper beside this script)
+import theory_oracle as brute  # the helper beside this script
 
-from linter.dependencies import (  # noqa: E402
+from linter.dependencies import (
     FD,
     ClosureIndex,
     bcnf_decompose,
@@ -35,6 +36,7 @@ from linter.dependencies import (  # noqa: E402
     normal_form,
     synthesize_3nf,
 )
+from tests.theory.oracle import naive_closure, oracle_form, oracle_keys
 
 SIZES = (16, 32, 64, 128)
 BRUTE_LIMIT = 16  # subset enumeration beyond this takes minutes
@@ -100,8 +102,8 @@ Operation = Callable[[int, list[FD]], object]
 # name, ours, the brute force, whether the brute force enumerates subsets (small relations only)
 OPERATIONS: list[tuple[str, Operation, Operation, bool]] = [
     ("minimal cover", lambda r, f: minimal_cover(f), lambda r, f: brute.naive_minimal_cover(f), False),
-    ("candidate keys", lambda r, f: candidate_keys(r, f, time_limit=None), brute.keys_by_subsets, True),
-    ("normal form", normal_form, brute.normal_form_by_definition, True),
+    ("candidate keys", lambda r, f: candidate_keys(r, f, time_limit=None), oracle_keys, True),
+    ("normal form", normal_form, oracle_form, True),
     ("3NF synthesis", synthesize_3nf, brute.synthesis_by_subsets, True),
     ("BCNF decompose", bcnf_decompose, brute.bcnf_by_subsets, True),
 ]
@@ -117,7 +119,7 @@ def sizes_table(repeats: int) -> None:
         index = ClosureIndex(fds)
         queries = _queries(n, 200, seed=n)
         mine = median_seconds(lambda: [index.closure(x) for x in queries], repeats)
-        other = median_seconds(lambda: [brute.naive_closure(x, fds) for x in queries], repeats)
+        other = median_seconds(lambda: [naive_closure(x, fds) for x in queries], repeats)
         _print_row("closure x200", n, mine, other, notes)
         for name, ours, theirs, by_subsets in OPERATIONS:
             mine = median_seconds(lambda: ours(r, fds), repeats)
@@ -139,7 +141,7 @@ def closure_table(repeats: int) -> None:
     queries = _queries(64, 500, seed=8)
     prepared = median_seconds(lambda: [index.closure(x) for x in queries], repeats)
     one_shot = median_seconds(lambda: [closure(x, fds) for x in queries], repeats)
-    naive = median_seconds(lambda: [brute.naive_closure(x, fds) for x in queries], repeats)
+    naive = median_seconds(lambda: [naive_closure(x, fds) for x in queries], repeats)
     per = 1e6 / len(queries)
     print("closure, 64 attributes, 128 random dependencies, 500 queries (us per query):")
     print(f"  prepared index {prepared * per:7.2f}   one-shot closure() {one_shot * per:7.2f}"
@@ -149,7 +151,7 @@ def closure_table(repeats: int) -> None:
     chain_index = ClosureIndex(chain)
     prepared = median_seconds(lambda: chain_index.closure(1), repeats)
     one_shot = median_seconds(lambda: closure(1, chain), repeats)
-    naive = median_seconds(lambda: brute.naive_closure(1, chain), repeats)
+    naive = median_seconds(lambda: naive_closure(1, chain), repeats)
     print("closure of a0 over the chain a0 -> a1 -> ... -> a127 listed last link first (us):")
     print(f"  prepared index {prepared * 1e6:8.1f}   one-shot closure() {one_shot * 1e6:8.1f}"
           f"   fixpoint {naive * 1e6:9.1f}")
