@@ -36,29 +36,11 @@ from linter.dependencies import (
     normal_form,
     synthesize_3nf,
 )
+from tests.theory.generated import generated_relation
 from tests.theory.oracle import naive_closure, oracle_form, oracle_keys
 
 SIZES = (16, 32, 64, 128)
 BRUTE_LIMIT = 16  # subset enumeration beyond this takes minutes
-
-
-def generated_relation(n: int, seed: int) -> tuple[int, list[FD]]:
-    """n attributes, 2n one-attribute dependencies: most point forward (an attribute depends on
-    earlier ones), one in six points back into the first n/8, which makes alternate keys."""
-    rng = random.Random(seed)
-    front = max(2, n // 8)
-    fds = []
-    for _ in range(2 * n):
-        if rng.random() < 1 / 6:
-            rhs, pool = rng.randrange(front), range(front, n)
-        else:
-            rhs = rng.randrange(front, n)
-            pool = range(rhs)
-        lhs = 0
-        for position in rng.sample(pool, rng.choice((1, 1, 2, 2, 3))):
-            lhs |= 1 << position
-        fds.append(FD(lhs, 1 << rhs))
-    return (1 << n) - 1, fds
 
 
 def random_sets(n: int, m: int, seed: int) -> list[FD]:

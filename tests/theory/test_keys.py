@@ -13,6 +13,7 @@ from linter.dependencies import (
     set_order,
 )
 
+from .generated import independent_pairs
 from .oracle import naive_closure, oracle_keys
 from .strategies import THEORY, relations
 
@@ -46,36 +47,27 @@ def test_bounded_search_returns_keys_and_says_so(relation: tuple[int, list[FD]],
     assert search.complete == (len(expected) <= bound)
 
 
-def _pairs(n: int) -> list[FD]:
-    """n independent pairs a_i <-> b_i (a_i is bit 2i, b_i bit 2i+1): 2^n keys."""
-    fds = []
-    for i in range(n):
-        a, b = 1 << (2 * i), 1 << (2 * i + 1)
-        fds += [FD(a, b), FD(b, a)]
-    return fds
-
-
 def test_independent_pairs_have_two_to_the_n_keys() -> None:
-    search = candidate_keys((1 << 16) - 1, _pairs(8))
+    search = candidate_keys((1 << 16) - 1, independent_pairs(8))
     assert search.complete and len(search.keys) == 2**8
     assert all(key.bit_count() == 8 for key in search.keys)
 
 
-def test_key_bound_stops_the_search_on_twenty_pairs() -> None:
+def test_key_bound_stops_the_search_on_twentyindependent_pairs() -> None:
     r = (1 << 40) - 1
-    search = candidate_keys(r, _pairs(20), max_keys=500, time_limit=None)
+    search = candidate_keys(r, independent_pairs(20), max_keys=500, time_limit=None)
     assert not search.complete
     assert len(search.keys) == 500
-    assert all(naive_closure(key, _pairs(20)) == r for key in search.keys)
+    assert all(naive_closure(key, independent_pairs(20)) == r for key in search.keys)
 
 
-def test_default_bounds_hold_on_twenty_pairs() -> None:
-    search = candidate_keys((1 << 40) - 1, _pairs(20))
+def test_default_bounds_hold_on_twentyindependent_pairs() -> None:
+    search = candidate_keys((1 << 40) - 1, independent_pairs(20))
     assert not search.complete and 0 < len(search.keys) <= 1000
 
 
-def test_time_limit_stops_the_search_on_twenty_pairs() -> None:
-    search = candidate_keys((1 << 40) - 1, _pairs(20), max_keys=10**9, time_limit=0.05)
+def test_time_limit_stops_the_search_on_twentyindependent_pairs() -> None:
+    search = candidate_keys((1 << 40) - 1, independent_pairs(20), max_keys=10**9, time_limit=0.05)
     assert not search.complete
     assert 0 < len(search.keys) < 2**20
 

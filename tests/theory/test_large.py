@@ -1,12 +1,9 @@
 """A 64-attribute relation with 128 dependencies analysed completely; key explosions bounded."""
 from __future__ import annotations
 
-import random
-
 import pytest
 
 from linter.dependencies import (
-    FD,
     bcnf_decompose,
     candidate_keys,
     chase_is_lossless,
@@ -16,28 +13,12 @@ from linter.dependencies import (
     synthesize_3nf,
 )
 
-
-def _wide_relation(seed: int) -> tuple[int, list[FD]]:
-    """64 attributes, 128 one-attribute dependencies: most point forward (later attributes
-    depend on earlier ones), one in six points back into the first eight, making alternate keys."""
-    rng = random.Random(seed)
-    fds = []
-    for _ in range(128):
-        if rng.random() < 1 / 6:
-            rhs, pool = rng.randrange(8), range(8, 64)
-        else:
-            rhs = rng.randrange(8, 64)
-            pool = range(rhs)
-        lhs = 0
-        for position in rng.sample(pool, rng.choice((1, 1, 2, 2, 3))):
-            lhs |= 1 << position
-        fds.append(FD(lhs, 1 << rhs))
-    return (1 << 64) - 1, fds
+from .generated import generated_relation, independent_pairs
 
 
 @pytest.mark.parametrize("seed", [1, 2, 3])
 def test_wide_relation_is_analysed_completely(seed: int) -> None:
-    r, fds = _wide_relation(seed)
+    r, fds = generated_relation(64, seed)
     keys = candidate_keys(r, fds, time_limit=None)
     assert keys.complete
     for key in keys.keys:
@@ -57,10 +38,7 @@ def test_wide_relation_is_analysed_completely(seed: int) -> None:
 
 
 def test_normal_form_with_a_stopped_key_search() -> None:
-    pairs = []
-    for i in range(20):
-        a, b = 1 << (2 * i), 1 << (2 * i + 1)
-        pairs += [FD(a, b), FD(b, a)]
+    pairs = independent_pairs(20)
     keys = candidate_keys((1 << 40) - 1, pairs, max_keys=64)
     report = normal_form((1 << 40) - 1, pairs, keys)
     assert not report.keys.complete and len(report.keys.keys) == 64
