@@ -17,9 +17,9 @@ from collections.abc import Iterator
 from linter.analysis import analyse
 from linter.dependencies import FD
 from linter.dependencies.fd import members
+from linter.explain_split import caveats, listing
 from linter.model import Finding
 from linter.rule import Context, Rule
-from linter.explain_split import caveats, listing
 from linter.split_analysis import SplitAnalysis, carried_table, split_analysis
 from rules import read_page
 
