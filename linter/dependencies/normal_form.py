@@ -28,7 +28,7 @@ from __future__ import annotations
 from collections.abc import Sequence
 from typing import NamedTuple
 
-from .candidate_keys import KeySearch, candidate_keys
+from .candidate_keys import KeySearch, candidate_keys, prime_attributes
 from .closure import ClosureIndex
 from .fd import FD, members, require_within
 from .minimal_cover import minimal_cover
@@ -59,9 +59,7 @@ def normal_form(
     if keys is None:
         keys = candidate_keys(r, cover)
     index = ClosureIndex(cover)
-    prime = 0
-    for key in keys.keys:
-        prime |= key
+    prime = prime_attributes(r, cover, keys)
     parts = _KeyParts(keys.keys, index)
     violations = tuple(
         Violation(fd, *_classify(fd, prime, keys.keys, parts))
