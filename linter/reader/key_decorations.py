@@ -8,6 +8,8 @@ positions), so a CREATE TABLE that failed only on them can be read again:
   on a clash;
 - ``ASC`` / ``DESC`` on a column of a ``PRIMARY KEY (...)`` or ``UNIQUE (...)`` list: the index order.
 
+A quoted name is never one of these words: a column called ``"desc"`` stays in its key.
+
 ../shared/corpus/PARSE_REPORT.md (point 4) lists each as a failure that loses the whole table.
 
 >>> from linter.reader.dialects import get_dialect
@@ -23,7 +25,7 @@ from collections.abc import Sequence
 
 from sqlglot.tokens import Token
 
-from linter.reader.tokens import word
+from linter.reader.tokens import QUOTED_TOKENS, word
 
 _KEY_WORDS = ("PRIMARY KEY", "KEY", "UNIQUE")
 _INDEX_KINDS = ("CLUSTERED", "NONCLUSTERED")
@@ -34,7 +36,7 @@ _ORDERS = ("ASC", "DESC")
 def without_key_decorations(tokens: Sequence[Token]) -> list[Token] | None:
     """The tokens without the decorations above, or None when the statement has none."""
     dropped: set[int] = set()
-    words = [word(token) for token in tokens]
+    words = ["" if token.token_type in QUOTED_TOKENS else word(token) for token in tokens]
     for i, current in enumerate(words):
         if current in _INDEX_KINDS and i and words[i - 1] in _KEY_WORDS:
             dropped.add(i)

@@ -145,3 +145,19 @@ def test_sqlite_conflict_clauses_and_ordered_key_columns() -> None:
     assert not catalog.findings
     assert keys(catalog.tables["seeds"]) == {("id",), ("code",)}
     assert keys(catalog.tables["lots"]) == {("seed_id", "lot_no")}
+
+
+def test_quoted_column_named_like_a_key_decoration_stays_in_the_key() -> None:
+    # A quoted name is never a keyword (SQL standard delimited identifiers; from memory): the retry
+    # without ASC / DESC / CLUSTERED must keep a column called "desc" or [asc] in its key.
+    catalog = replay_sql(
+        "sqlite",
+        'CREATE TABLE lots (seed_id INT NOT NULL, "desc" INT NOT NULL, PRIMARY KEY (seed_id DESC, "desc"));\n'
+        'CREATE TABLE jars (jar_no INT NOT NULL, "asc" INT NOT NULL, UNIQUE (jar_no, "asc") ON CONFLICT ABORT);\n',
+    )
+    assert not catalog.findings
+    assert keys(catalog.tables["lots"]) == {("seed_id", "desc")}
+    assert keys(catalog.tables["jars"]) == {("jar_no", "asc")}
+    catalog = replay_sql("tsql", "CREATE TABLE berths (pier INT NOT NULL, [asc] INT NOT NULL,"
+                                 " CONSTRAINT pk_berths PRIMARY KEY NONCLUSTERED (pier, [asc]))")
+    assert keys(catalog.tables["berths"]) == {("pier", "asc")}
