@@ -23,7 +23,8 @@ piece may then hide a violation.
 """
 from __future__ import annotations
 
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
+from functools import cache
 
 from .closure import ClosureIndex
 from .decomposition import Decomposition, Piece, drop_contained, make_piece
@@ -37,63 +38,52 @@ def bcnf_decompose(r: int, fds: Sequence[tuple[int, int]]) -> Decomposition:
     """A lossless decomposition of r into pieces in BCNF, and the dependencies it loses."""
     require_within(r, fds)
     cover = minimal_cover(fds)
-    closures = _Closures(ClosureIndex(cover))
+    index = ClosureIndex(cover)
+    closure_of = cache(index.closure)  # many pieces ask for the same left sides
     pieces: list[Piece] = []
     work = [r]
     while work:
         attrs = work.pop()
-        lhs = _violation(attrs, cover, closures)
+        lhs = _violation(attrs, cover, closure_of)
         piece_fds: Sequence[FD] = ()
         if lhs is None:
-            piece_fds = _projection(attrs, cover, closures)
-            lhs = _violation(attrs, piece_fds, closures)
+            piece_fds = _projection(attrs, cover, index, closure_of)
+            lhs = _violation(attrs, piece_fds, closure_of)
         if lhs is None:
             pieces.append(make_piece(attrs, piece_fds))
             continue
-        determined = closures.of(lhs) & attrs
+        determined = closure_of(lhs) & attrs
         work.append(lhs | (attrs & ~determined))
         work.append(determined)
     kept = drop_contained([piece.attrs for piece in pieces])
     chosen = tuple(piece for piece in pieces if piece.attrs in kept)
-    return Decomposition(chosen, not_preserved(cover, closures.of, kept))
+    return Decomposition(chosen, not_preserved(cover, closure_of, kept))
 
 
-class _Closures:
-    """Closures under F, remembered: many pieces ask for the same left sides."""
-
-    def __init__(self, index: ClosureIndex) -> None:
-        self.index = index
-        self._known: dict[int, int] = {}
-
-    def of(self, x: int) -> int:
-        """X+ under F."""
-        if x not in self._known:
-            self._known[x] = self.index.closure(x)
-        return self._known[x]
-
-
-def _projection(attrs: int, cover: list[FD], closures: _Closures) -> tuple[FD, ...]:
+def _projection(
+    attrs: int, cover: list[FD], index: ClosureIndex, closure_of: Callable[[int], int]
+) -> tuple[FD, ...]:
     """A minimal cover of the dependencies on the piece."""
-    if closures.of(attrs) == attrs:
+    if closure_of(attrs) == attrs:
         return tuple(fd for fd in cover if not fd.lhs & ~attrs)
-    return project_with(closures.index, attrs).fds
+    return project_with(index, attrs).fds
 
 
-def _violation(attrs: int, fds: Sequence[FD], closures: _Closures) -> int | None:
+def _violation(attrs: int, fds: Sequence[FD], closure_of: Callable[[int], int]) -> int | None:
     """The violating left side in the piece whose closure takes the most of it, reduced."""
     best = None
     best_size = 0
     for fd in fds:
         if fd.lhs & ~attrs:
             continue
-        determined = closures.of(fd.lhs) & attrs
+        determined = closure_of(fd.lhs) & attrs
         size = determined.bit_count()
         if determined != fd.lhs and determined != attrs and size > best_size:
             best, best_size = fd.lhs, size
     if best is None:
         return None
-    target = closures.of(best) & attrs
+    target = closure_of(best) & attrs
     for a in members(best):
-        if closures.of(best & ~a) & attrs == target:
+        if closure_of(best & ~a) & attrs == target:
             best &= ~a
     return best
