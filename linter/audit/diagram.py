@@ -16,7 +16,15 @@ from __future__ import annotations
 from collections.abc import Collection, Mapping, Sequence
 from html import escape
 
-from linter.audit.layout import BOX_HEIGHT, FONT_SIZE, Arrow, Box, Lane, Layout, diagram_layout
+from linter.audit.layout import (
+    BOX_HEIGHT,
+    FONT_SIZE,
+    Arrow,
+    Box,
+    Lane,
+    Layout,
+    diagram_layout,
+)
 
 _RADIUS = 7
 _HEAD = 8

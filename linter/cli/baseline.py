@@ -18,6 +18,7 @@ from linter.baseline import (
     outside,
     plural,
 )
+from linter.cli.baseline_check import baseline_scope
 from linter.cli.check import plan, settings
 from linter.cli.errors import Failure, reported
 from linter.cli.options import checked_dialect
@@ -57,7 +58,7 @@ def baseline(
         previous = _previous(output, prune)
         with file_progress(stderr_is_terminal()) as on_file:
             result = run(config, read, report_paths=report, on_file=on_file)
-        scope = report or read
+        scope = baseline_scope(read, report, config)
         if prune and previous is not None:
             comparison = compare(previous, result.findings, scope)
             if not comparison.fixed:

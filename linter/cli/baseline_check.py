@@ -15,11 +15,30 @@ from collections.abc import Sequence
 
 import click
 
-from linter.baseline import Baseline, BaselineError, Comparison, compare, load_baseline, notes
+from linter.baseline import (
+    Baseline,
+    BaselineError,
+    Comparison,
+    compare,
+    load_baseline,
+    notes,
+)
 from linter.cli.errors import Failure
+from linter.config import Config
 from linter.engine import Result
 from linter.reporters import render
 from linter.reporters.sarif import render_sarif
+
+
+def baseline_scope(read: list[str], report: list[str] | None, config: Config) -> list[str]:
+    """The files a run speaks for: the reported files, else all it read and the settings file.
+
+    Dependencies in the settings draw findings located in the settings file, so a full run
+    compares and re-records their entries too instead of keeping them aside as another file's.
+    """
+    if report is not None:
+        return report
+    return [*read, config.source] if config.source else read
 
 
 def read_baseline(path: str) -> Baseline:

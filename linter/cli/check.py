@@ -8,7 +8,12 @@ import sys
 import click
 
 from linter.atomic_write import atomic_write
-from linter.cli.baseline_check import apply_baseline, baseline_report, read_baseline
+from linter.cli.baseline_check import (
+    apply_baseline,
+    baseline_report,
+    baseline_scope,
+    read_baseline,
+)
 from linter.cli.errors import Failure, reported
 from linter.cli.options import checked_dialect, exit_status, split_ids, use_color
 from linter.cli.show_rules import unknown_rule
@@ -114,7 +119,7 @@ def check(
             click.echo(f"normguard: no SQL file found under {', '.join(wanted)} (include: "
                        f"{', '.join(config.include)}); nothing was checked", err=True)
         if recorded is not None:
-            result, comparison = apply_baseline(result, recorded, report or read)
+            result, comparison = apply_baseline(result, recorded, baseline_scope(read, report, config))
         code = exit_status(result.findings, config.fail_on)
         colored = use_color(color, is_tty=output is None and sys.stdout.isatty(), environ=os.environ)
         if recorded is None:
