@@ -12,7 +12,7 @@ from __future__ import annotations
 
 import difflib
 import os
-from collections.abc import Callable
+from collections.abc import Callable, Iterable
 from typing import Any
 
 from sqlglot.dialects.dialect import Dialects
@@ -79,7 +79,7 @@ class SettingsChecker:
         values = {}
         for key, node in settings.items():
             if key not in handlers:
-                raise self.fail(node, key, f"unknown key{_suggest(key, handlers)}")
+                raise self.fail(node, key, f"unknown key{suggestion(key, handlers)}")
             values[key.replace("-", "_")] = handlers[key](node)
         return values
 
@@ -122,7 +122,7 @@ class SettingsChecker:
         """A sqlglot dialect name."""
         value = self.string(node, key).lower()
         if value not in DIALECTS:
-            raise self.fail(node, key, f"unknown SQL dialect '{value}'{_suggest(value, DIALECTS)}")
+            raise self.fail(node, key, f"unknown SQL dialect '{value}'{suggestion(value, DIALECTS)}")
         return value
 
     def dialects(self, node: Node) -> dict[str, str]:
@@ -144,7 +144,7 @@ class SettingsChecker:
         """Refuse a rule id that no module in ``rules/`` defines."""
         known = _rule_ids()
         if rule not in known:
-            raise self.fail(node, key, f"unknown rule id '{rule}'{_suggest(rule, known)}")
+            raise self.fail(node, key, f"unknown rule id '{rule}'{suggestion(rule, known)}")
 
     def severity(self, node: Node) -> dict[str, str]:
         """Rule id -> level."""
@@ -162,7 +162,7 @@ class SettingsChecker:
             entry = self.mapping(item, key)
             for name, value in entry.items():
                 if name not in TABLE_KEYS:
-                    raise self.fail(value, f"{key}.{name}", f"unknown key{_suggest(name, TABLE_KEYS)}")
+                    raise self.fail(value, f"{key}.{name}", f"unknown key{suggestion(name, TABLE_KEYS)}")
             target = entry.get("target")
             deps = entry.get("dependencies")
             result[table] = (
@@ -200,7 +200,7 @@ def _rule_ids() -> frozenset[str]:
     return frozenset(rule.id for rule in all_rules())
 
 
-def _suggest(word: str, choices: object) -> str:
+def suggestion(word: str, choices: Iterable[str]) -> str:
     """`` (did you mean 'x'?)`` when a choice is close to ``word``, else nothing."""
-    close = difflib.get_close_matches(word, sorted(choices), n=1)  # type: ignore[call-overload]
+    close = difflib.get_close_matches(word, sorted(choices), n=1)
     return f" (did you mean '{close[0]}'?)" if close else ""

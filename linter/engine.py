@@ -20,12 +20,12 @@ does not have is an ``annotation-error``. With ``report_paths`` only findings lo
 from __future__ import annotations
 
 import dataclasses
-import difflib
 from collections.abc import Callable, Collection, Iterable, Sequence
 from dataclasses import dataclass
 
 from linter.analysis import TableAnalysis, analyse
 from linter.config import Config
+from linter.config_check import suggestion
 from linter.fingerprint import fingerprint
 from linter.model import Catalog, Finding
 from linter.reader import read_catalog
@@ -115,13 +115,12 @@ def _leveled(finding: Finding, rule: Rule, config: Config) -> Finding:
 
 def _unknown_allows(catalog: Catalog) -> Iterable[Finding]:
     """An ``annotation-error`` for every allow that names a rule id no rule module defines."""
-    known = sorted(rule.id for rule in all_rules())
+    known = [rule.id for rule in all_rules()]
     for table in [*catalog.tables.values(), *catalog.dropped]:
         for allow in table.allows:
             for rule_id in allow.rules:
                 if rule_id not in known:
-                    close = difflib.get_close_matches(rule_id, known, n=1)
-                    hint = f" (did you mean '{close[0]}'?)" if close else " (see normguard rules)"
+                    hint = suggestion(rule_id, known) or " (see normguard rules)"
                     yield Finding(
                         _ALLOW_ERROR,
                         "error",
