@@ -2,7 +2,11 @@
 
 Nothing here uses ``linter.dependencies`` beyond the ``FD`` tuple: closures by fixpoint, keys and
 F+ by enumerating subsets, normal forms by their definitions, the chase on named symbols, and
-the natural join of projections of concrete rows.
+the natural join of projections of concrete rows. The definitions followed (from memory):
+closure and F+ by Armstrong (1974), "Dependency structures of data base relationships"; 2NF and
+3NF by Codd (1971), "Further normalization of the data base relational model"; BCNF by Codd
+(1974), "Recent investigations in relational data base systems"; the chase by Aho, Beeri & Ullman
+(1979), "The theory of joins in relational databases".
 """
 from __future__ import annotations
 
