@@ -71,7 +71,7 @@ def run(
         name: analyse(table, targets.get(name, config.target)) for name, table in catalog.tables.items()
     }
     rules = selected_rules(config)
-    context = Context(catalog, analyses, {"dialect_for": config.dialect_for, "targets": targets})
+    context = Context(catalog, analyses, {"dialect_for": config.dialect_for})
     found = [_leveled(f, rule, config) for rule in rules for f in rule.check(context)]
     allow_rule = next((rule for rule in rules if rule.id == _ALLOW_ERROR), None)
     if allow_rule is not None:
