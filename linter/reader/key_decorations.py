@@ -29,7 +29,8 @@ from linter.reader.tokens import QUOTED_TOKENS, word
 
 _KEY_WORDS = ("PRIMARY KEY", "KEY", "UNIQUE")
 _INDEX_KINDS = ("CLUSTERED", "NONCLUSTERED")
-_RESOLUTIONS = ("ROLLBACK", "ABORT", "FAIL", "IGNORE", "REPLACE")
+_CONFLICT_CLAUSES = [["CONFLICT", resolution] for resolution in ("ROLLBACK", "ABORT", "FAIL", "IGNORE", "REPLACE")]
+"""``CONFLICT <resolution>`` for each SQLite resolution, to compare with a slice of words."""
 _ORDERS = ("ASC", "DESC")
 
 
@@ -40,18 +41,13 @@ def without_key_decorations(tokens: Sequence[Token]) -> list[Token] | None:
     for i, current in enumerate(words):
         if current in _INDEX_KINDS and i and words[i - 1] in _KEY_WORDS:
             dropped.add(i)
-        elif current == "ON" and words[i + 1 : i + 3] in _conflict_clauses():
+        elif current == "ON" and words[i + 1 : i + 3] in _CONFLICT_CLAUSES:
             dropped.update((i, i + 1, i + 2))
         elif current in _ORDERS and _in_key_list(words, i):
             dropped.add(i)
     if not dropped:
         return None
     return [token for i, token in enumerate(tokens) if i not in dropped]
-
-
-def _conflict_clauses() -> list[list[str]]:
-    """``CONFLICT <resolution>`` for each SQLite resolution, to compare with a slice of words."""
-    return [["CONFLICT", resolution] for resolution in _RESOLUTIONS]
 
 
 def _in_key_list(words: Sequence[str], i: int) -> bool:
