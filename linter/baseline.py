@@ -20,12 +20,13 @@ gone as fixed. Fingerprints never hold line numbers, so moving or reformatting S
 from __future__ import annotations
 
 from collections import defaultdict, deque
-from collections.abc import Collection, Iterable
+from collections.abc import Iterable, Sequence
 from dataclasses import dataclass
 from pathlib import Path
 
 import yaml
 
+from linter.engine import located_in
 from linter.model import Finding
 
 HEADER = "normguard-baseline"
@@ -76,17 +77,12 @@ def baseline_of(findings: Iterable[Finding], keep: Iterable[Entry] = ()) -> Base
     return Baseline(tuple(sorted(entries, key=lambda e: (e.path, e.rule, e.table or "", e.fingerprint))))
 
 
-def outside(baseline: Baseline, scope: Collection[str]) -> tuple[Entry, ...]:
+def outside(baseline: Baseline, scope: Sequence[str]) -> tuple[Entry, ...]:
     """The entries for files outside ``scope`` (files and folders): a partial run says nothing of them."""
-    return tuple(entry for entry in baseline.entries if not within(entry.path, scope))
+    return tuple(entry for entry in baseline.entries if not located_in(entry.path, scope))
 
 
-def within(path: str, scope: Collection[str]) -> bool:
-    """True when ``path`` is one of the ``scope`` paths or lies in one of them as a folder."""
-    return any(path == s or s in (".", "") or path.startswith(s.rstrip("/") + "/") for s in scope)
-
-
-def compare(baseline: Baseline, findings: Iterable[Finding], scope: Collection[str] = (".",)) -> Comparison:
+def compare(baseline: Baseline, findings: Iterable[Finding], scope: Sequence[str] = (".",)) -> Comparison:
     """Match findings to entries by fingerprint, one entry per finding (the same print may recur).
 
     Entries for files outside ``scope`` are kept as they are: neither matched nor fixed.
@@ -98,7 +94,7 @@ def compare(baseline: Baseline, findings: Iterable[Finding], scope: Collection[s
     kept: list[Entry] = []
     fixed: list[Entry] = []
     for entry in baseline.entries:
-        if not within(entry.path, scope):
+        if not located_in(entry.path, scope):
             kept.append(entry)
         elif waiting[entry.fingerprint]:
             unchanged.append(waiting[entry.fingerprint].popleft())
