@@ -11,10 +11,13 @@
 >>> violation = analysis.report.violations[0]
 >>> analysis.attributes.format_fd(violation.fd), analysis.origin(violation.fd).span.line
 ('depot -> city', 5)
->>> for line in analysis.describe_decomposition(analysis.split_on(violation.fd.lhs)):
+>>> split = analysis.split_on(violation.fd.lhs)
+>>> for line in analysis.describe_decomposition(split):
 ...     print(line)
 couriers (courier_id, depot), key courier_id
 couriers_by_depot (depot, city), key depot
+>>> analysis.chase(split).lossless, analysis.chase(split) is analysis.chase(split)
+(True, True)
 
 Where a finding points: a dependency X -> A of the minimal cover is derived from the given ones
 (``derive``); the given dependency whose application first put A into the closure of X is its
@@ -29,12 +32,14 @@ from functools import cached_property
 from linter.dependencies import (
     FD,
     Attributes,
+    ChaseResult,
     Decomposition,
     KeySearch,
     NormalFormReport,
     Piece,
     bcnf_decompose,
     candidate_keys,
+    chase_is_lossless,
     closure,
     derive,
     minimal_cover,
@@ -63,6 +68,7 @@ class TableAnalysis:
     report: NormalFormReport
     target: str  # "bcnf", "3nf" or "2nf"
     _splits: dict[int, Decomposition] = field(default_factory=dict, repr=False)
+    _chases: dict[tuple[int, ...], ChaseResult] = field(default_factory=dict, repr=False)
 
     @cached_property
     def bcnf(self) -> Decomposition:
@@ -102,6 +108,13 @@ class TableAnalysis:
             lost = preserves_dependencies(self.cover, [piece.attrs for piece in pieces])
             self._splits[lhs] = Decomposition(pieces, lost)
         return self._splits[lhs]
+
+    def chase(self, decomposition: Decomposition) -> ChaseResult:
+        """Whether ``decomposition``'s pieces join back into the table's rows, chased once per piece set."""
+        pieces = tuple(piece.attrs for piece in decomposition.pieces)
+        if pieces not in self._chases:
+            self._chases[pieces] = chase_is_lossless(self.attributes.full, self.cover, pieces)
+        return self._chases[pieces]
 
     def _piece(self, attrs: int) -> Piece:
         """A piece over ``attrs`` with the projected cover and its candidate keys."""

@@ -24,7 +24,7 @@ from __future__ import annotations
 from collections.abc import Callable, Iterator
 
 from linter.analysis import KIND_FORM, TARGET_FORM, TableAnalysis
-from linter.dependencies import FD, chase_is_lossless, closure
+from linter.dependencies import FD
 from linter.model import Finding, Span
 from linter.rule import Context
 
@@ -110,10 +110,10 @@ def _explanation(kind: str, analysis: TableAnalysis, fd: FD) -> list[str]:
 
 def _split_lines(analysis: TableAnalysis, fd: FD, said: tuple[FD, ...]) -> list[str]:
     """The split on X -> X+ that removes the violation, checked by the chase (``said``: told elsewhere)."""
-    names, r = analysis.attributes, analysis.attributes.full
+    names = analysis.attributes
     split = analysis.split_on(fd.lhs)
-    determined = closure(fd.lhs, analysis.cover) & r & ~fd.lhs
-    chase = chase_is_lossless(r, analysis.cover, [piece.attrs for piece in split.pieces])
+    determined = split.pieces[1].attrs & ~fd.lhs  # the second piece is X+
+    chase = analysis.chase(split)
     verdict = (
         f"lossless: the chase confirms that joining them on {names.format(fd.lhs)} gives back exactly"
         f" the rows of {analysis.table.name}"
