@@ -17,7 +17,7 @@ from collections.abc import Iterator, Sequence
 
 from sqlglot.tokens import Token, TokenType
 
-from linter.reader.kinds import CREATE_MODIFIERS, names_object
+from linter.reader.kinds import names_object, object_word
 from linter.reader.nesting import nesting
 from linter.reader.tokens import token_at, word
 
@@ -74,15 +74,7 @@ def _is_plsql_head(tokens: Sequence[Token], i: int) -> bool:
     head = word(tokens[i])
     if head in ("DECLARE", "BEGIN"):
         return True
-    if head != "CREATE":
-        return False
-    for token in tokens[i + 1 : i + 6]:
-        following = word(token)
-        if following in _PLSQL_OBJECTS:
-            return True
-        if following not in CREATE_MODIFIERS:
-            return False
-    return False
+    return head == "CREATE" and object_word(tokens, i) in _PLSQL_OBJECTS
 
 
 def restart_points(tokens: Sequence[Token]) -> list[int]:
