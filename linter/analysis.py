@@ -86,9 +86,8 @@ class TableAnalysis:
 
     def derivation(self, fd: FD) -> list[GivenDependency]:
         """The given dependencies the closure applied to derive ``fd``, in order."""
-        used = derive([g.fd for g in self.given], fd) or ()
         fds = [g.fd for g in self.given]
-        return [self.given[fds.index(step)] for step in used]
+        return [self.given[fds.index(step)] for step in derive(fds, fd) or ()]
 
     def origin(self, fd: FD) -> GivenDependency | None:
         """The given dependency that first put an attribute of ``fd.rhs`` into the closure of its lhs."""
