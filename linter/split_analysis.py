@@ -76,7 +76,7 @@ class SplitAnalysis:
         """Positions in ``split.pieces`` of the pieces that carry at least one original column."""
         return tuple(i for i, bits in enumerate(self.pieces) if bits)
 
-    def piece_names(self, bits: int) -> tuple[str, ...]:
+    def holding(self, bits: int) -> tuple[str, ...]:
         """The pieces that carry any of the original columns in ``bits``."""
         return tuple(p.table for p, held in zip(self.split.pieces, self.pieces) if held & bits)
 

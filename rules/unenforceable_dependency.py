@@ -40,7 +40,7 @@ def check(context: Context) -> Iterator[Finding]:
                 RULE.severity,
                 split.span,
                 f"after the split of {split.original}, no single table holds {names.format_fd(fd)}:"
-                f" its columns went to {listing(analysis.piece_names(fd.lhs | fd.rhs))},"
+                f" its columns went to {listing(analysis.holding(fd.lhs | fd.rhs))},"
                 " so checking it needs a join on every write",
                 split.original,
                 (names.to_names(fd.lhs), names.to_names(fd.rhs)),
@@ -58,8 +58,8 @@ def _merged(lost: tuple[FD, ...]) -> list[FD]:
 
 def _explanation(analysis: SplitAnalysis, fd: FD) -> list[str]:
     """Where each column of the dependency went, and how to enforce it still."""
-    names, pieces = analysis.attrs, listing(analysis.piece_names(fd.lhs | fd.rhs))
-    placed = [f"{names.format(a)} went to {listing(analysis.piece_names(a))}" for a in members(fd.lhs | fd.rhs)]
+    names, pieces = analysis.attrs, listing(analysis.holding(fd.lhs | fd.rhs))
+    placed = [f"{names.format(a)} went to {listing(analysis.holding(a))}" for a in members(fd.lhs | fd.rhs)]
     return [
         "; ".join(placed),
         "the dependencies the pieces enforce on their own do not imply it either",
