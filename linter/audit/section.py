@@ -19,6 +19,7 @@ from typing import Any
 
 from linter.audit.diagram import dependency_svg
 from linter.audit.layout import Arrow
+from linter.baseline import plural
 
 Record = Mapping[str, Any]
 _LEGEND = (
@@ -56,7 +57,7 @@ def table_section(record: Record, anchor: str) -> str:
     columns = record["columns"]
     facts = " \u00b7 ".join([
         _count(len(columns), "column"), _count(len(record["keys"]), "candidate key"),
-        _count(len(record["dependencies"]), "dependency", "dependencies"), _count(len(record["findings"]), "finding"),
+        _count(len(record["dependencies"]), "dependency"), _count(len(record["findings"]), "finding"),
     ])
     everything = [c["name"] for c in columns]
     parts = [
@@ -78,9 +79,9 @@ def table_section(record: Record, anchor: str) -> str:
     return "\n".join(parts)
 
 
-def _count(count: int, word: str, words: str = "") -> str:
-    """``1 column``, ``3 columns``."""
-    return f"{count} {word if count == 1 else words or word + 's'}"
+def _count(count: int, word: str) -> str:
+    """``1 column``, ``3 columns``, ``2 dependencies``."""
+    return f"{count} {plural(count, word)}"
 
 
 def _columns(columns: Sequence[Record]) -> str:

@@ -12,6 +12,7 @@ from __future__ import annotations
 
 from collections.abc import Iterable
 
+from linter.baseline import plural
 from linter.model import SEVERITIES, Finding
 
 RANK: dict[str, int] = {severity: rank for rank, severity in enumerate(SEVERITIES)}
@@ -36,14 +37,14 @@ def counts(findings: Iterable[Finding]) -> dict[str, int]:
     return tally
 
 
-def _plural(count: int, word: str) -> str:
+def _count(count: int, word: str) -> str:
     """``1 error`` / ``2 errors``."""
-    return f"{count} {word}" if count == 1 else f"{count} {word}s"
+    return f"{count} {plural(count, word)}"
 
 
 def summary(findings: Iterable[Finding], *, suppressed: int, files: int) -> str:
     """The closing line: counts by severity, files read and findings suppressed."""
     tally = counts(findings)
-    parts = ", ".join(_plural(tally[s], s) for s in reversed(SEVERITIES))
-    line = f"normguard: {parts} in {_plural(files, 'file')}"
+    parts = ", ".join(_count(tally[s], s) for s in reversed(SEVERITIES))
+    line = f"normguard: {parts} in {_count(files, 'file')}"
     return f"{line} ({suppressed} suppressed)" if suppressed else line
