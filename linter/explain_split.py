@@ -79,9 +79,8 @@ def _join_lines(analysis: SplitAnalysis) -> list[str]:
     if chase.method == "binary":
         reach = closure(chase.common, analysis.fds)
         side = next(i for i in analysis.carrying if not analysis.pieces[i] & ~reach)
-        noun = "column" if chase.common.bit_count() == 1 else "columns"
         fd = FD(chase.common, analysis.pieces[side] & ~chase.common)
-        return [f"lossless: the common {noun} {names.format(chase.common)} is a key of"
+        return [f"lossless: the {common_columns(analysis, chase.common)} is a key of"
                 f" {analysis.split.pieces[side].table} ({names.format_fd(fd)})"]
     header = ("piece", *names.to_names(analysis.relation))
     rows = [(analysis.split.pieces[i].table, *row) for i, row in zip(analysis.carrying, chase.tableau)]
@@ -106,6 +105,12 @@ def _preservation_lines(analysis: SplitAnalysis) -> list[str]:
             where = "follows from the dependencies the pieces enforce on their own"
         lines.append(f"  {names.format_fd(fd)}: {where}")
     return lines
+
+
+def common_columns(analysis: SplitAnalysis, bits: int) -> str:
+    """``common column a`` or ``common columns a, b``: columns that pieces share."""
+    noun = "column" if bits.bit_count() == 1 else "columns"
+    return f"common {noun} {analysis.attrs.format(bits)}"
 
 
 def counterexample_lines(analysis: SplitAnalysis) -> list[str]:

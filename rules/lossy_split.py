@@ -15,7 +15,7 @@ from collections.abc import Iterator, Sequence
 from itertools import combinations
 
 from linter.dependencies import candidate_keys, closure
-from linter.explain_split import caveats, counterexample_lines, listing
+from linter.explain_split import caveats, common_columns, counterexample_lines, listing
 from linter.model import Finding
 from linter.rule import Context, Rule
 from linter.split_analysis import SplitAnalysis, split_analysis
@@ -46,8 +46,7 @@ def _joined(analysis: SplitAnalysis) -> str:
     shared = _shared(analysis)
     if not shared:
         return "they share no column, so joining them back pairs every row with every other and"
-    noun = "column" if shared.bit_count() == 1 else "columns"
-    return f"joining them back on their common {noun} {analysis.attrs.format(shared)}"
+    return f"joining them back on their {common_columns(analysis, shared)}"
 
 
 def _shared(analysis: SplitAnalysis) -> int:
