@@ -23,6 +23,7 @@ from linter.reader.dialects import get_dialect
 from linter.reader.names import fold_column, table_name
 from linter.reader.partitions import attach, detach
 from linter.reader.state import ReplayState
+from linter.reader.tokens import word
 
 _NAME_TYPES = frozenset({TokenType.VAR, TokenType.IDENTIFIER})
 
@@ -33,12 +34,12 @@ def recover(state: ReplayState, text: str) -> bool:
         tokens = get_dialect(state.dialect).tokenize(text)
     except TokenError:
         return False
-    if [token.text.upper() for token in tokens[:2]] != ["ALTER", "TABLE"]:
+    if [word(token) for token in tokens[:2]] != ["ALTER", "TABLE"]:
         return False
     i = 2
-    while i < len(tokens) and tokens[i].text.upper() in ("IF", "EXISTS", "ONLY"):
+    while i < len(tokens) and word(tokens[i]) in ("IF", "EXISTS", "ONLY"):
         i += 1
-    if_exists = any(token.text.upper() == "EXISTS" for token in tokens[2:i])
+    if_exists = any(word(token) == "EXISTS" for token in tokens[2:i])
     target, i = _name(tokens, i)
     if target is None:
         return False
@@ -69,7 +70,7 @@ def _name(tokens: list[Token], start: int) -> tuple[exp.Table | None, int]:
 
 def _partition(state: ReplayState, tokens: list[Token], i: int, parent: exp.Table, if_exists: bool) -> bool:
     """``... t ATTACH | DETACH PARTITION c [FOR VALUES ... | DEFAULT | CONCURRENTLY | FINALIZE]``."""
-    verb = [token.text.upper() for token in tokens[i : i + 2]]
+    verb = [word(token) for token in tokens[i : i + 2]]
     if verb not in (["ATTACH", "PARTITION"], ["DETACH", "PARTITION"]):
         return False
     child, after = _name(tokens, i + 2)
@@ -79,14 +80,14 @@ def _partition(state: ReplayState, tokens: list[Token], i: int, parent: exp.Tabl
     if verb[0] == "ATTACH":
         attach(state, parent_name, name, state.text_span(tokens[i + 2].start, tokens[after - 1].end + 1), if_exists)
     else:
-        finalize = any(token.text.upper() == "FINALIZE" for token in tokens[after:])
+        finalize = any(word(token) == "FINALIZE" for token in tokens[after:])
         detach(state, parent_name, name, if_exists, finalize)
     return True
 
 
 def _rename_constraint(state: ReplayState, tokens: list[Token], i: int, target: exp.Table, if_exists: bool) -> bool:
     """``ALTER TABLE [IF EXISTS] [ONLY] t RENAME CONSTRAINT a TO b``: the rule keeps its columns."""
-    words = [token.text.upper() for token in tokens[i:]]
+    words = [word(token) for token in tokens[i:]]
     if len(words) != 5 or words[:2] != ["RENAME", "CONSTRAINT"] or words[3] != "TO":
         return False
     old_token, new_token = tokens[i + 2], tokens[i + 4]
