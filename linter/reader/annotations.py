@@ -31,13 +31,12 @@ from __future__ import annotations
 import re
 from dataclasses import dataclass
 
-from sqlglot import exp
 from sqlglot.errors import TokenError
 from sqlglot.tokens import Token, TokenType
 
 from linter.model import Finding, Span
 from linter.reader.dialects import get_dialect
-from linter.reader.names import fold_column, parse_table_name
+from linter.reader.names import fold_column, parse_table_name, token_identifier
 from linter.reader.script import Comment
 
 __all__ = [
@@ -245,8 +244,7 @@ def _columns(
             continue
         if not _name(token, dialect):
             raise _Malformed(f"fd annotation: {token.text!r} is not a column name; expected {_FD_SHAPE}")
-        identifier = exp.Identifier(this=token.text, quoted=token.token_type == TokenType.IDENTIFIER)
-        folded.append(fold_column(identifier, dialect or ""))
+        folded.append(fold_column(token_identifier(token), dialect or ""))
         written.append(text[token.start : token.end + 1])
     if tokens[-1].token_type == TokenType.COMMA:
         raise _Malformed(f"fd annotation: a column name is missing after the last ',' on the {side} side")

@@ -18,11 +18,17 @@ from __future__ import annotations
 
 from sqlglot import exp
 from sqlglot.dialects.dialect import Dialect
+from sqlglot.tokens import Token, TokenType
 
 DEFAULT_SCHEMAS: dict[str, str] = {"postgres": "public", "tsql": "dbo", "sqlite": "main"}
 # MySQL column and index names are case-insensitive on every platform while table names follow
 # the file system (MySQL manual, "Identifier Case Sensitivity"; from memory): fold the former.
 _CASE_INSENSITIVE_COLUMNS: frozenset[str] = frozenset({"mysql"})
+
+
+def token_identifier(token: Token) -> exp.Identifier:
+    """The identifier a name token stands for (quoted when written in quotes)."""
+    return exp.Identifier(this=token.text, quoted=token.token_type == TokenType.IDENTIFIER)
 
 
 def fold(identifier: exp.Identifier, dialect: str) -> str:

@@ -20,7 +20,7 @@ from sqlglot.errors import TokenError
 from sqlglot.tokens import Token, TokenType
 
 from linter.reader.dialects import get_dialect
-from linter.reader.names import fold_column, table_name
+from linter.reader.names import fold_column, table_name, token_identifier
 from linter.reader.partitions import attach, detach
 from linter.reader.state import ReplayState
 from linter.reader.tokens import word
@@ -46,17 +46,12 @@ def recover(state: ReplayState, text: str) -> bool:
     return _rename_constraint(state, tokens, i, target, if_exists) or _partition(state, tokens, i, target, if_exists)
 
 
-def _identifier(token: Token) -> exp.Identifier:
-    """The identifier a name token stands for (quoted when written in quotes)."""
-    return exp.Identifier(this=token.text, quoted=token.token_type == TokenType.IDENTIFIER)
-
-
 def _name(tokens: list[Token], start: int) -> tuple[exp.Table | None, int]:
     """A possibly qualified name starting at ``start``, and the index after it."""
     parts: list[exp.Identifier] = []
     i = start
     while i < len(tokens) and tokens[i].token_type in _NAME_TYPES:
-        parts.append(_identifier(tokens[i]))
+        parts.append(token_identifier(tokens[i]))
         if i + 1 < len(tokens) and tokens[i + 1].token_type == TokenType.DOT:
             i += 2
         else:
@@ -93,7 +88,7 @@ def _rename_constraint(state: ReplayState, tokens: list[Token], i: int, target: 
     old_token, new_token = tokens[i + 2], tokens[i + 4]
     if old_token.token_type not in _NAME_TYPES or new_token.token_type not in _NAME_TYPES:
         return False
-    old, new = (fold_column(_identifier(token), state.dialect) for token in (old_token, new_token))
+    old, new = (fold_column(token_identifier(token), state.dialect) for token in (old_token, new_token))
     table = state.table(table_name(target, state.dialect))
     if table is None:
         if not if_exists:
