@@ -34,13 +34,12 @@ from dataclasses import dataclass
 from sqlglot.errors import TokenError
 from sqlglot.tokens import Token, TokenType
 
-from linter.model import Finding, Span
+from linter.model import Allow, Finding, Span
 from linter.reader.dialects import get_dialect
 from linter.reader.names import fold_column, parse_table_name, token_identifier
 from linter.reader.script import Comment
 
 __all__ = [
-    "AllowAnnotation",
     "Annotation",
     "FdAnnotation",
     "SplitFromAnnotation",
@@ -77,15 +76,6 @@ class FdAnnotation:
 
 
 @dataclass(frozen=True)
-class AllowAnnotation:
-    """``normguard: allow rule-id[, rule-id]: reason``."""
-
-    rules: tuple[str, ...]
-    reason: str
-    span: Span
-
-
-@dataclass(frozen=True)
 class SplitFromAnnotation:
     """``normguard: split-from old_table``: ``table`` is the catalog key, ``table_written`` as written."""
 
@@ -94,7 +84,8 @@ class SplitFromAnnotation:
     table_written: str = ""
 
 
-Annotation = FdAnnotation | AllowAnnotation | SplitFromAnnotation
+Annotation = FdAnnotation | Allow | SplitFromAnnotation
+"""What one annotation line says; an allow is the catalog's ``Allow`` as it stands."""
 
 
 class _Malformed(Exception):
@@ -173,7 +164,7 @@ def _parse_body(text: str, span: Span, dialect: str | None) -> Annotation:
     raise _Malformed(f"unknown annotation {verb!r}: expected one of {', '.join(VERBS)}")
 
 
-def _parse_allow(text: str, span: Span) -> AllowAnnotation:
+def _parse_allow(text: str, span: Span) -> Allow:
     """``rule-id[, rule-id]: reason``."""
     rules_text, colon, reason = text.partition(":")
     rules = tuple(part.strip() for part in rules_text.split(","))
@@ -188,7 +179,7 @@ def _parse_allow(text: str, span: Span) -> AllowAnnotation:
     if not colon or not reason.strip():
         shape = f"normguard: allow {', '.join(rules)}: <why this is fine>"
         raise _Malformed(f"allow annotation needs a reason: write '{shape}'")
-    return AllowAnnotation(rules, reason.strip(), span)
+    return Allow(rules, reason.strip(), span)
 
 
 def _tokens(text: str, dialect: str | None, what: str) -> list[Token]:

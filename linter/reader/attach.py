@@ -18,7 +18,11 @@ from __future__ import annotations
 from collections.abc import Iterable, Mapping, Sequence
 
 from linter.model import Allow, Dependency, Finding, Span, Table
-from linter.reader.annotations import AllowAnnotation, FdAnnotation, SplitFromAnnotation, parse_annotations
+from linter.reader.annotations import (
+    FdAnnotation,
+    SplitFromAnnotation,
+    parse_annotations,
+)
 from linter.reader.names import parse_column_name, parse_table_name
 from linter.reader.script import Comment
 from linter.reader.splits import declare
@@ -42,10 +46,10 @@ def attach_comments(state: ReplayState, comments: Iterable[Comment], host: str |
                 table = _target(state, "fd", found.table or host, found.span)
                 if table is not None:
                     _add_dependency(state, table, Dependency(found.lhs, found.rhs, found.span, "annotation"))
-            elif isinstance(found, AllowAnnotation):
+            elif isinstance(found, Allow):
                 table = _target(state, "allow", host, found.span)
                 if table is not None:
-                    table.allows.append(Allow(tuple(found.rules), found.reason, found.span))
+                    table.allows.append(found)
 
 
 def _target(state: ReplayState, kind: str, name: str | None, span: Span) -> Table | None:

@@ -3,9 +3,8 @@ from __future__ import annotations
 
 import pytest
 
-from linter.model import Finding, Span
+from linter.model import Allow, Finding, Span
 from linter.reader.annotations import (
-    AllowAnnotation,
     FdAnnotation,
     SplitFromAnnotation,
     parse_annotation,
@@ -64,7 +63,7 @@ def test_written_names_keep_their_quotes() -> None:
 def test_allow_with_reasons_and_split_from() -> None:
     text = " normguard: allow missing-key, transitive-dependency: the vault list is fixed"
     allow = parse_annotation(_line_comment(text), "postgres")
-    assert allow == AllowAnnotation(
+    assert allow == Allow(
         ("missing-key", "transitive-dependency"), "the vault list is fixed", allow.span
     )
     split = parse_annotation(_line_comment(" normguard: split-from public.lots"), "postgres")
@@ -123,7 +122,7 @@ def test_a_block_comment_holds_one_annotation_per_line_each_at_its_line() -> Non
     script = split_file(Source("db/001_lots.sql", text), "postgres")
     (comment,) = script.trailing_comments
     found = parse_annotations(comment, "postgres")
-    assert [type(f).__name__ for f in found] == ["FdAnnotation", "AllowAnnotation", "Finding"]
+    assert [type(f).__name__ for f in found] == ["FdAnnotation", "Allow", "Finding"]
     assert [(f.span.line, f.span.column) for f in found] == [(5, 4), (6, 4), (7, 4)]
     fd_span = found[0].span
     assert text.splitlines()[4][fd_span.column - 1 : fd_span.end_column - 1] == "normguard: fd genus -> family"
