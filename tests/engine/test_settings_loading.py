@@ -153,6 +153,7 @@ def test_empty_yaml_file_gives_defaults(tmp_path: Path) -> None:
 
 
 def test_yaml_words_stay_text(tmp_path: Path) -> None:
+    # YAML 1.1 resolves off and no to booleans (yaml.org/type/bool.html, from memory); settings keep them as text
     _write(tmp_path, ".normguard.yaml", "severity:\n  missing-key: off\n  nullable-unique: no\n")
     message = _error(tmp_path, ".normguard.yaml", "severity:\n  missing-key: off\n  nullable-unique: no\n")
     assert message == ".normguard.yaml:3: severity.nullable-unique: expected one of error, warning, note, off, got 'no'"

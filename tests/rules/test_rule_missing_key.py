@@ -1,4 +1,9 @@
-"""missing-key: tables without a primary key or a unique key over NOT NULL columns."""
+"""missing-key: tables without a primary key or a unique key over NOT NULL columns.
+
+Source, from memory: an SQL table is a multiset of rows, so without a PRIMARY KEY or a UNIQUE
+over NOT NULL columns it may hold the same row twice (ISO/IEC 9075-2, tables and unique
+constraints); a UNIQUE over a nullable column or with a WHERE clause does not prevent that.
+"""
 from __future__ import annotations
 
 import pytest

@@ -1,4 +1,13 @@
-"""nullable-unique and redundant-unique: unique rules that are not keys, or add nothing to one."""
+"""nullable-unique and redundant-unique: unique rules that are not keys, or add nothing to one.
+
+Sources, all from memory:
+- A UNIQUE constraint holds as long as no two rows have equal values that are all non-null, so
+  any number of rows may hold NULL (ISO/IEC 9075-2, the UNIQUE predicate; the PostgreSQL, MySQL and
+  SQLite manuals on unique constraints say the same). UNIQUE NULLS NOT DISTINCT arrived in
+  PostgreSQL 15 (its release notes); SQL Server's UNIQUE admits a single NULL (its manual).
+- A set of columns holding a key is a superkey: it is unique in every instance the key allows,
+  so a unique rule over it rejects no further row (the definition of superkey in any database text).
+"""
 from __future__ import annotations
 
 from pathlib import Path
