@@ -73,12 +73,12 @@ class ForeignKey:
 
 @dataclass(frozen=True)
 class Dependency:
-    """A functional dependency declared by an annotation comment or the config file."""
+    """A functional dependency declared by an annotation comment or the config file (or carried by a split)."""
 
     lhs: tuple[str, ...]
     rhs: tuple[str, ...]
     span: Span
-    source: str  # "annotation" or "config"
+    source: str  # "annotation", "config", or "split" (the original's, on what a split's pieces carry)
 
 
 @dataclass(frozen=True)
