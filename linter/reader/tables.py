@@ -16,7 +16,13 @@ from __future__ import annotations
 from dataclasses import replace
 
 from linter.model import Column, Dependency, ForeignKey, Table, Unique
-from linter.reader.constraints import CheckSpec, ColumnSpec, ForeignKeySpec, KeySpec, Spec
+from linter.reader.constraints import (
+    CheckSpec,
+    ColumnSpec,
+    ForeignKeySpec,
+    KeySpec,
+    Spec,
+)
 from linter.reader.names import implied_name
 from linter.reader.state import ReplayState
 
