@@ -54,50 +54,58 @@ def test_postgres_create_and_alter_tabel_are_errors_at_the_word_and_reading_goes
     assert catalog.tables["depots"].column_names == ("id", "city")
 
 
-def test_mysql_modifiers_are_passed_and_the_hint_follows_the_case_written() -> None:
-    script = _split(
+MISSPELT = [
+    pytest.param(
+        "mysql",
         "create temporary tabel deck_plan (id int);\n"
         "CREATE OR REPLACE VEIW sailings_today AS SELECT 1;\n"
         "CREATE TABLE vessels (id int PRIMARY KEY);\n",
-        "mysql",
-    )
-    assert _errors(script) == [
-        (1, 18, 23, "unknown object kind tabel after create temporary; did you mean table?"),
-        (2, 19, 23, "unknown object kind VEIW after CREATE OR REPLACE; did you mean VIEW?"),
-    ]
-    assert _kinds(script)[-1] == ("ast", 3)
-
-
-def test_sqlite_misspelt_unique_and_drop_and_a_word_with_no_close_kind() -> None:
-    script = _split(
+        [
+            (1, 18, 23, "unknown object kind tabel after create temporary; did you mean table?"),
+            (2, 19, 23, "unknown object kind VEIW after CREATE OR REPLACE; did you mean VIEW?"),
+        ],
+        ("ast", 3),
+        id="mysql-modifiers-passed-hint-in-the-case-written",
+    ),
+    pytest.param(
+        "sqlite",
         "CREATE UNIQE INDEX lots_code ON lots (code);\n"
         "DROP TABEL lots;\n"
         "CREATE GIZMO seed_counter (n int);\n",
-        "sqlite",
-    )
-    assert _errors(script) == [
-        (1, 8, 13, "unknown object kind UNIQE after CREATE; did you mean UNIQUE?"),
-        (2, 6, 11, "unknown object kind TABEL after DROP; did you mean TABLE?"),
-        (3, 8, 13, "unknown object kind GIZMO after CREATE"),
-    ]
-
-
-def test_tsql_in_go_batches_and_without_semicolons() -> None:
-    script = _split(
+        [
+            (1, 8, 13, "unknown object kind UNIQE after CREATE; did you mean UNIQUE?"),
+            (2, 6, 11, "unknown object kind TABEL after DROP; did you mean TABLE?"),
+            (3, 8, 13, "unknown object kind GIZMO after CREATE"),
+        ],
+        ("error", 3),
+        id="sqlite-unique-drop-and-a-word-with-no-close-kind",
+    ),
+    pytest.param(
+        "tsql",
         "CREATE TABEL dbo.vessels (id int PRIMARY KEY)\nGO\n"
         "ALTER TABEL dbo.vessels ADD tonnage int\nGO\n"
         "CREATE OR ALTER PROCEDUR dbo.touch AS SELECT 1\nGO\n"
         "CREATE TABEL dbo.berths (id int PRIMARY KEY)\n"
         "CREATE TABLE dbo.ports (code char(5) PRIMARY KEY)\n",
-        "tsql",
-    )
-    assert _errors(script) == [
-        (1, 8, 13, "unknown object kind TABEL after CREATE; did you mean TABLE?"),
-        (3, 7, 12, "unknown object kind TABEL after ALTER; did you mean TABLE?"),
-        (5, 17, 25, "unknown object kind PROCEDUR after CREATE OR ALTER; did you mean PROCEDURE?"),
-        (7, 8, 13, "unknown object kind TABEL after CREATE; did you mean TABLE?"),
-    ]
-    assert _kinds(script)[-1] == ("ast", 8)
+        [
+            (1, 8, 13, "unknown object kind TABEL after CREATE; did you mean TABLE?"),
+            (3, 7, 12, "unknown object kind TABEL after ALTER; did you mean TABLE?"),
+            (5, 17, 25, "unknown object kind PROCEDUR after CREATE OR ALTER; did you mean PROCEDURE?"),
+            (7, 8, 13, "unknown object kind TABEL after CREATE; did you mean TABLE?"),
+        ],
+        ("ast", 8),
+        id="tsql-in-go-batches-and-without-semicolons",
+    ),
+]
+
+
+@pytest.mark.parametrize(("dialect", "text", "errors", "last"), MISSPELT)
+def test_misspelt_kind_is_an_error_at_the_word_and_reading_goes_on(
+    dialect: str, text: str, errors: list[tuple[int, int, int, str]], last: tuple[str, int]
+) -> None:
+    script = _split(text, dialect)
+    assert _errors(script) == errors
+    assert _kinds(script)[-1] == last
 
 
 LEGITIMATE = {
