@@ -41,7 +41,6 @@ __all__ = [
     "UnknownDialectError",
     "get_dialect",
     "split_file",
-    "split_statements",
 ]
 
 
@@ -71,11 +70,6 @@ def split_file(source: Source, dialect: str | None) -> Script:
     findings = sorted(state.findings + problems, key=lambda f: (f.span.line, f.span.column))
     script.findings.extend(findings)
     return script
-
-
-def split_statements(source: Source, dialect: str | None) -> list[Statement]:
-    """The statements of ``source`` to replay (see ``split_file`` for the rest)."""
-    return split_file(source, dialect).statements
 
 
 @contextmanager
