@@ -26,8 +26,8 @@ from pathlib import Path
 
 import yaml
 
-from linter.engine import located_in
 from linter.model import Finding
+from linter.reader.sources import located_in
 
 HEADER = "normguard-baseline"
 VERSION = 1

@@ -46,6 +46,7 @@ from dataclasses import dataclass, field
 from linter.config_check import SettingsChecker, relative
 from linter.config_file import ConfigError, parse_toml, parse_yaml
 from linter.model import Dependency
+from linter.reader.sources import located_in
 
 __all__ = ["Config", "ConfigError", "TableSettings", "load_config"]
 
@@ -81,7 +82,7 @@ class Config:
 
     def dialect_for(self, path: str) -> str:
         """The dialect of the file at ``path``: that of the deepest ``dialects`` folder holding it."""
-        matches = [f for f in self.dialects if f in (".", path) or path.startswith(f.rstrip("/") + "/")]
+        matches = [folder for folder in self.dialects if located_in(path, [folder])]
         return self.dialects[max(matches, key=len)] if matches else self.dialect
 
     def config_dependencies(self) -> dict[str, list[Dependency]]:

@@ -30,7 +30,7 @@ from linter.fingerprint import fingerprint
 from linter.model import Catalog, Finding
 from linter.reader import read_catalog
 from linter.reader.names import parse_table_name
-from linter.reader.sources import display_path
+from linter.reader.sources import display_path, located_in
 from linter.rule import Context, Rule
 from rules import all_rules
 
@@ -145,11 +145,6 @@ def _suppress(findings: list[Finding], catalog: Catalog) -> tuple[list[Finding],
         is_allowed = finding.rule in allowed.get(finding.table or "", ())
         (suppressed if is_allowed else kept).append(finding)
     return kept, suppressed
-
-
-def located_in(path: str, wanted: Sequence[str]) -> bool:
-    """True when ``path`` is one of ``wanted`` or lies in one of them as a folder."""
-    return any(path == w or w == "." or path.startswith(w.rstrip("/") + "/") for w in wanted)
 
 
 def _finished(findings: list[Finding]) -> list[Finding]:

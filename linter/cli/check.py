@@ -19,8 +19,8 @@ from linter.cli.options import checked_dialect, exit_status, split_ids, use_colo
 from linter.cli.show_rules import unknown_rule
 from linter.config import Config, load_config
 from linter.config_check import FAIL_LEVELS, TARGETS
-from linter.engine import located_in, run
-from linter.reader.sources import display_path
+from linter.engine import run
+from linter.reader.sources import display_path, located_in
 from linter.reporters import FORMATS, render
 from rules import all_rules
 

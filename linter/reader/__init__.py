@@ -18,7 +18,7 @@ from collections.abc import Callable, Iterator, Mapping, Sequence
 
 from linter.model import Catalog, Dependency
 from linter.reader.replay import ScriptFile, replay
-from linter.reader.sources import discover_files, display_path, read_source
+from linter.reader.sources import discover_files, display_path, located_in, read_source
 from linter.reader.statements import split_file
 
 __all__ = ["read_catalog", "replay", "ScriptFile"]
@@ -49,7 +49,7 @@ def _scripts(files: list[str], dialect: str, prefixes: list[tuple[str, str]],
         if on_file is not None:
             on_file(index, len(files), path)
         source = read_source(path)
-        file_dialect = next((d for prefix, d in prefixes if _under(source.path, prefix)), dialect)
+        file_dialect = next((d for prefix, d in prefixes if located_in(source.path, [prefix])), dialect)
         yield ScriptFile(source.path, file_dialect, split_file(source, file_dialect))
 
 
@@ -58,7 +58,3 @@ def _prefixes(overrides: Mapping[str, str]) -> list[tuple[str, str]]:
     shown = [(display_path(prefix), dialect) for prefix, dialect in overrides.items()]
     return sorted(shown, key=lambda item: len(item[0]), reverse=True)
 
-
-def _under(path: str, prefix: str) -> bool:
-    """True when ``path`` is ``prefix`` itself or lies in the folder ``prefix``."""
-    return prefix in (".", "") or path == prefix or path.startswith(prefix.rstrip("/") + "/")

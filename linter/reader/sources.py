@@ -165,6 +165,11 @@ def display_path(path: str | os.PathLike[str]) -> str:
         return Path(path).as_posix()
 
 
+def located_in(path: str, wanted: Sequence[str]) -> bool:
+    """True when ``path`` (as ``display_path`` writes it) is one of ``wanted`` or lies in one as a folder."""
+    return any(w in (".", "", path) or path.startswith(w.rstrip("/") + "/") for w in wanted)
+
+
 def _file_problem(path: str, message: str, severity: str = "warning") -> Finding:
     """A ``file-error`` finding about the whole file, placed at its first line."""
     return Finding("file-error", severity, Span(path, 1, 1, 1, 1), message)
