@@ -15,7 +15,7 @@
 from __future__ import annotations
 
 from linter.analysis import KIND_FORM, TARGET_FORM, TableAnalysis
-from linter.dependencies import Decomposition, chase_is_lossless
+from linter.dependencies import Decomposition
 
 _KIND = {"partial": "partial dependency", "transitive": "transitive dependency", "bcnf": "BCNF violation"}
 
@@ -67,7 +67,7 @@ def _violations(analysis: TableAnalysis) -> list[str]:
 def _decomposition(analysis: TableAnalysis, title: str, decomposition: Decomposition) -> list[str]:
     """A decomposition's pieces, the chase's lossless verdict and what it fails to preserve."""
     names = analysis.attributes
-    chase = chase_is_lossless(names.full, analysis.cover, [piece.attrs for piece in decomposition.pieces])
+    chase = analysis.chase(decomposition)
     verdict = "lossless (checked by the chase)" if chase.lossless else "LOSSY according to the chase"
     lines = [f"{title}: {len(decomposition.pieces)} table(s), {verdict}"]
     lines += [f"  {line}" for line in analysis.describe_decomposition(decomposition)]
